@@ -1,0 +1,102 @@
+"""Shared click parameter types and output helpers for the commands."""
+
+from __future__ import annotations
+
+import os
+import re
+import tempfile
+
+import click
+
+from covertree.errors import ProfileError
+from covertree.symmetric.partitions import Partition
+
+_RANGE = re.compile(r"^\s*(-?\d+)\s*\.\.\s*(-?\d+)\s*$")
+
+
+class ProfileType(click.ParamType):
+    """A profile ``3,1`` or ``2,1^3`` (one branch point)."""
+
+    name = "profile"
+
+    def convert(self, value, param, ctx):
+        if isinstance(value, Partition):
+            return value
+        try:
+            return Partition.parse(value)
+        except ProfileError as error:
+            self.fail(str(error), param, ctx)
+
+
+class IntRangeList(click.ParamType):
+    """``4``, ``2..6`` or ``2,3,5`` (or a mix ``2..4,7``): a sorted list of ints."""
+
+    name = "range"
+
+    def convert(self, value, param, ctx):
+        if isinstance(value, list):
+            return value
+        out: set[int] = set()
+        for token in str(value).split(","):
+            m = _RANGE.match(token)
+            if m:
+                lo, hi = int(m.group(1)), int(m.group(2))
+                if lo > hi:
+                    self.fail(f"range {token.strip()!r} is empty (write low..high)", param, ctx)
+                out.update(range(lo, hi + 1))
+            elif token.strip().lstrip("-").isdigit():
+                out.add(int(token))
+            else:
+                self.fail(
+                    f"{token.strip()!r} is not an integer, a range a..b or a list a,b,c",
+                    param,
+                    ctx,
+                )
+        return sorted(out)
+
+
+PROFILE = ProfileType()
+INT_RANGE = IntRangeList()
+
+
+def format_option(choices: list[str], default: str = "table"):
+    """The ``--format/-f`` option with the given choices."""
+    return click.option(
+        "--format",
+        "-f",
+        "fmt",
+        type=click.Choice(choices),
+        default=default,
+        show_default=True,
+        help="Output format.",
+    )
+
+
+output_option = click.option(
+    "--output",
+    "-o",
+    "output",
+    type=click.Path(dir_okay=False, writable=True),
+    default=None,
+    help="Write to this file (atomically) instead of standard output.",
+)
+
+
+def emit(text: str, output: str | None) -> None:
+    """Write ``text`` to stdout, or atomically to ``output``: the file appears
+    complete or not at all."""
+    if not text.endswith("\n"):
+        text += "\n"
+    if output is None:
+        click.echo(text, nl=False)
+        return
+    directory = os.path.dirname(os.path.abspath(output))
+    fd, tmp = tempfile.mkstemp(dir=directory, prefix=".covertree-", suffix=".tmp")
+    try:
+        with os.fdopen(fd, "w", encoding="utf-8") as handle:
+            handle.write(text)
+        os.replace(tmp, output)
+    except BaseException:
+        if os.path.exists(tmp):
+            os.unlink(tmp)
+        raise

@@ -1,0 +1,1 @@
+"""Hurwitz problems and Hurwitz numbers by characters (Frobenius' formula)."""

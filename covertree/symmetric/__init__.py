@@ -1,0 +1,1 @@
+"""Symmetric-group layer: permutations on plain tuples, partitions, characters."""
