@@ -1,0 +1,351 @@
+"""Canonical forms and automorphism groups of dual graphs.
+
+A graph is given on plain sequences: ``genera[v]`` for the 0-based vertices,
+``edges`` a list of pairs ``(i, j)`` (``i == j`` is a loop, repeated pairs are
+parallel edges) and ``legs[v]`` the leg labels at ``v``.  An isomorphism is a
+bijection of vertices and of half-edges keeping genera, incidences and every
+leg label.
+
+The canonical form is computed by individualisation-refinement:
+
+1. colour refinement (1-dimensional Weisfeiler-Leman) starting from the
+   invariant ``(genus, legs, loops, valence)`` and refining by the multiset of
+   ``(neighbour colour, edge multiplicity)``;
+2. when the colouring is not discrete, the first non-singleton cell is
+   individualised vertex by vertex (backtracking), and the least leaf
+   certificate is the canonical one;
+3. automorphisms found on the way (two leaves with equal certificates) prune
+   the search by orbits, and the order of the vertex automorphism group is the
+   product of the orbit sizes along the first path (orbit-stabiliser).
+
+The half-edge automorphism group is an extension of the vertex group by the
+permutations of parallel edges and the flips and permutations of loops, so
+``|Aut| = |Aut_V| * prod m_ij! * prod_v (l_v! * 2^l_v)``.
+
+References
+----------
+B. D. McKay, *Practical graph isomorphism*, Congressus Numerantium 30 (1981).
+B. D. McKay and A. Piperno, *Practical graph isomorphism, II*, J. Symbolic
+Comput. 60 (2014).
+
+Examples
+--------
+>>> key1, order1, _ = canonical_form([0, 1], [(0, 1)], [[1], []])
+>>> key2, order2, _ = canonical_form([1, 0], [(1, 0)], [[], [1]])
+>>> key1 == key2, order1, order2
+(True, [0, 1], [1, 0])
+>>> count_automorphisms([0], [(0, 0), (0, 0)], [[]])  # two loops: 2! * 2^2
+8
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+from math import factorial
+
+from covertree.errors import GraphError
+
+__all__ = ["canonical_form", "count_automorphisms", "vertex_automorphism_count"]
+
+
+def canonical_form(
+    genera: Sequence[int],
+    edges: Sequence[tuple[int, int]],
+    legs: Sequence[Sequence[int]],
+) -> tuple[tuple, list[int], list[int]]:
+    """Canonical certificate and canonical orders of vertices and edges.
+
+    Parameters
+    ----------
+    genera : sequence of int
+        Genus of each vertex (0-based vertices).
+    edges : sequence of (int, int)
+        Edges as pairs of vertex indices; ``(i, i)`` is a loop.
+    legs : sequence of sequences of int
+        Leg labels at each vertex (one entry per vertex).
+
+    Returns
+    -------
+    key : tuple of int
+        Equal for two inputs if and only if the graphs are isomorphic; totally
+        ordered.  Layout: ``(V, E, genera..., then per vertex the number of
+        legs and the legs, then one code i*V + j per edge)`` in canonical order.
+    vertex_order : list of int
+        ``vertex_order[i]`` is the input vertex at canonical position ``i``.
+    edge_order : list of int
+        ``edge_order[k]`` is the input edge index at canonical position ``k``.
+
+    Examples
+    --------
+    >>> canonical_form([0, 0, 0], [(2, 0), (0, 1)], [[3], [1], [2]])[1]
+    [1, 2, 0]
+    """
+    _check_shape(genera, edges, legs)
+    key, order, _ = _certify(tuple(genera), tuple(map(tuple, edges)), tuple(map(tuple, legs)))
+    inv = [0] * len(order)
+    for pos, v in enumerate(order):
+        inv[v] = pos
+    n = len(order)
+    codes = [_edge_code(inv[a], inv[b], n) for a, b in edges]
+    edge_order = sorted(range(len(codes)), key=codes.__getitem__)
+    return key, order, edge_order
+
+
+def count_automorphisms(
+    genera: Sequence[int],
+    edges: Sequence[tuple[int, int]],
+    legs: Sequence[Sequence[int]],
+) -> int:
+    """Order of the automorphism group, counted on half-edges.
+
+    Loops can be flipped and permuted, parallel edges permuted; legs are fixed.
+
+    Examples
+    --------
+    >>> count_automorphisms([0, 0], [(0, 1)] * 3, [[], []])  # theta graph
+    12
+    >>> count_automorphisms([1, 1], [(0, 1)], [[1], []])
+    1
+    """
+    _check_shape(genera, edges, legs)
+    edges = tuple(map(tuple, edges))
+    aut_v = _certify(tuple(genera), edges, tuple(map(tuple, legs)))[2]
+    return aut_v * edge_symmetry_factor(edges)
+
+
+def vertex_automorphism_count(
+    genera: Sequence[int],
+    edges: Sequence[tuple[int, int]],
+    legs: Sequence[Sequence[int]],
+) -> int:
+    """Order of the group of vertex permutations preserving the multigraph.
+
+    Examples
+    --------
+    >>> vertex_automorphism_count([0, 0], [(0, 1)] * 3, [[], []])
+    2
+    """
+    _check_shape(genera, edges, legs)
+    return _certify(tuple(genera), tuple(map(tuple, edges)), tuple(map(tuple, legs)))[2]
+
+
+def edge_symmetry_factor(edges: Sequence[tuple[int, int]]) -> int:
+    """``prod m_ij! * prod_v l_v! 2^l_v``: automorphisms fixing every vertex.
+
+    Examples
+    --------
+    >>> edge_symmetry_factor([(0, 1), (1, 0), (1, 1)])
+    4
+    """
+    counts: dict[tuple[int, int], int] = {}
+    for a, b in edges:
+        pair = (a, b) if a <= b else (b, a)
+        counts[pair] = counts.get(pair, 0) + 1
+    out = 1
+    for (a, b), m in counts.items():
+        out *= factorial(m) * (2**m if a == b else 1)
+    return out
+
+
+def _check_shape(genera, edges, legs) -> None:
+    n = len(genera)
+    if len(legs) != n:
+        raise GraphError(f"legs must have one entry per vertex ({n}), got {len(legs)}")
+    for e in edges:
+        if len(e) != 2 or not all(isinstance(x, int) and 0 <= x < n for x in e):
+            raise GraphError(f"edge {tuple(e)!r} does not join two of the vertices 0..{n - 1}")
+
+
+def _edge_code(a: int, b: int, n: int) -> int:
+    return a * n + b if a <= b else b * n + a
+
+
+# ---------------------------------------------------------------------------
+# The search, on plain tuples (hot path of the enumeration).
+# ---------------------------------------------------------------------------
+
+
+def _certify(genera: tuple, edges: tuple, legs: tuple) -> tuple[tuple, list[int], int]:
+    """``(key, vertex_order, |Aut_V|)`` for a graph on plain tuples.
+
+    Legs may repeat (a multiset of colours per vertex): then ``|Aut_V|`` counts
+    vertex permutations preserving the colours.
+    """
+    n = len(genera)
+    nbrs, loops = _adjacency(n, edges)
+    legs = [tuple(sorted(x)) for x in legs]
+    valence = [len(legs[v]) + 2 * loops[v] + sum(m for _, m in nbrs[v]) for v in range(n)]
+    start = [(genera[v], len(legs[v]), legs[v], loops[v], valence[v]) for v in range(n)]
+    colours = _refine(_ranks(start), nbrs, n)
+    if len(set(colours)) == n:
+        order, aut_v = _inverse(colours), 1
+    else:
+        order, aut_v = _Search(n, nbrs, edges).run(colours)
+    return _key(genera, edges, legs, order), order, aut_v
+
+
+def _adjacency(n: int, edges: tuple) -> tuple[list[list[tuple[int, int]]], list[int]]:
+    loops = [0] * n
+    mult: dict[tuple[int, int], int] = {}
+    for a, b in edges:
+        if a == b:
+            loops[a] += 1
+        else:
+            pair = (a, b) if a < b else (b, a)
+            mult[pair] = mult.get(pair, 0) + 1
+    nbrs: list[list[tuple[int, int]]] = [[] for _ in range(n)]
+    for (a, b), m in mult.items():
+        nbrs[a].append((b, m))
+        nbrs[b].append((a, m))
+    return nbrs, loops
+
+
+def _ranks(signatures: list) -> list[int]:
+    rank = {s: i for i, s in enumerate(sorted(set(signatures)))}
+    return [rank[s] for s in signatures]
+
+
+def _refine(colours: list[int], nbrs: list, n: int) -> list[int]:
+    """Colour refinement to the coarsest equitable refinement (order kept)."""
+    count = len(set(colours))
+    while count < n:
+        sigs = [
+            (colours[v], tuple(sorted([(colours[u], m) for u, m in nbrs[v]])))
+            for v in range(n)
+        ]
+        colours = _ranks(sigs)
+        new_count = colours and max(colours) + 1
+        if new_count == count:
+            break
+        count = new_count
+    return colours
+
+
+def _inverse(colours: list[int]) -> list[int]:
+    order = [0] * len(colours)
+    for v, c in enumerate(colours):
+        order[c] = v
+    return order
+
+
+def _leaf_code(edges: tuple, colours: list[int], n: int) -> tuple:
+    return tuple(sorted([_edge_code(colours[a], colours[b], n) for a, b in edges]))
+
+
+def _key(genera: tuple, edges: tuple, legs: list, order: list[int]) -> tuple:
+    n = len(order)
+    inv = [0] * n
+    for pos, v in enumerate(order):
+        inv[v] = pos
+    out = [n, len(edges)]
+    out.extend(genera[v] for v in order)
+    for v in order:
+        out.append(len(legs[v]))
+        out.extend(legs[v])
+    out.extend(_leaf_code(edges, inv, n))
+    return tuple(out)
+
+
+class _Search:
+    """Individualisation-refinement with orbit pruning (McKay 1981)."""
+
+    def __init__(self, n: int, nbrs: list, edges: tuple) -> None:
+        self.n, self.nbrs, self.edges = n, nbrs, edges
+        self.first = None  # (code, colours) of the first leaf
+        self.best = None  # (code, colours) of the least leaf so far
+        self.first_path: list[int] = []
+        self.generators: list[tuple[int, ...]] = []
+
+    def run(self, colours: list[int]) -> tuple[list[int], int]:
+        self._visit(colours, [])
+        return _inverse(self.best[1]), self._group_order()
+
+    def _visit(self, colours: list[int], prefix: list[int]) -> int | None:
+        """Explore below ``prefix``; return a level to jump back to, or None."""
+        if len(set(colours)) == self.n:
+            return self._leaf(colours, prefix)
+        cell = _first_cell(colours)
+        explored: list[int] = []
+        for w in cell:
+            if explored and self._same_orbit(w, explored, prefix):
+                continue
+            explored.append(w)
+            jump = self._visit(self._individualise(colours, w), prefix + [w])
+            if jump is not None and jump < len(prefix):
+                return jump
+        return None
+
+    def _individualise(self, colours: list[int], w: int) -> list[int]:
+        c = colours[w]
+        new = [x if x < c else x + 1 for x in colours]
+        new[w] = c
+        return _refine(new, self.nbrs, self.n)
+
+    def _leaf(self, colours: list[int], prefix: list[int]) -> int | None:
+        code = _leaf_code(self.edges, colours, self.n)
+        if self.first is None:
+            self.first = self.best = (code, colours)
+            self.first_path = list(prefix)
+            return None
+        if code == self.first[0]:
+            self._record(self.first[1], colours)
+            return _common_prefix(prefix, self.first_path)
+        if code == self.best[0]:
+            self._record(self.best[1], colours)
+        elif code < self.best[0]:
+            self.best = (code, colours)
+        return None
+
+    def _record(self, old: list[int], new: list[int]) -> None:
+        """Store the automorphism taking the leaf ``old`` to the leaf ``new``."""
+        at = _inverse(new)
+        self.generators.append(tuple(at[old[v]] for v in range(self.n)))
+
+    def _orbits(self, fixed: list[int]) -> list[int]:
+        parent = list(range(self.n))
+        for g in self.generators:
+            if all(g[p] == p for p in fixed):
+                for v in range(self.n):
+                    _union(parent, v, g[v])
+        return [_find(parent, v) for v in range(self.n)]
+
+    def _same_orbit(self, w: int, explored: list[int], prefix: list[int]) -> bool:
+        if not self.generators:
+            return False
+        root = self._orbits(prefix)
+        return any(root[w] == root[x] for x in explored)
+
+    def _group_order(self) -> int:
+        order = 1
+        for k, v in enumerate(self.first_path):
+            root = self._orbits(self.first_path[:k])
+            order *= sum(1 for u in range(self.n) if root[u] == root[v])
+        return order
+
+
+def _first_cell(colours: list[int]) -> list[int]:
+    sizes: dict[int, int] = {}
+    for c in colours:
+        sizes[c] = sizes.get(c, 0) + 1
+    target = min(c for c, s in sizes.items() if s > 1)
+    return [v for v, c in enumerate(colours) if c == target]
+
+
+def _common_prefix(a: list[int], b: list[int]) -> int:
+    k = 0
+    while k < len(a) and k < len(b) and a[k] == b[k]:
+        k += 1
+    return k
+
+
+def _find(parent: list[int], v: int) -> int:
+    while parent[v] != v:
+        parent[v] = parent[parent[v]]
+        v = parent[v]
+    return v
+
+
+def _union(parent: list[int], a: int, b: int) -> None:
+    ra, rb = _find(parent, a), _find(parent, b)
+    if ra != rb:
+        parent[max(ra, rb)] = min(ra, rb)
