@@ -1,9 +1,58 @@
-"""The `covertree strata` command (being written)."""
+"""The ``covertree strata`` command: the boundary strata of ``Mbar_{h,n}``."""
+
+from __future__ import annotations
+
+import io
 
 import click
+from rich.console import Console
+from rich.table import Table
+
+from covertree.cli.params import emit, format_option, output_option
+from covertree.export.graphs import strata_csv, strata_json, strata_latex, strata_rows
+from covertree.graphs.enumerate import stable_graphs
 
 
 @click.command("strata")
-def command() -> None:
-    """Not available yet."""
-    raise click.UsageError("'strata' is not available in this build")
+@click.option("--target-genus", "-t", "genus", type=int, required=True, help="Genus h of the target.")
+@click.option("--points", "-n", "points", type=int, required=True, help="Number n of marked (branch) points.")
+@click.option(
+    "--codim",
+    "-k",
+    "codim",
+    type=int,
+    default=None,
+    help="Largest codimension listed  [default: 3h-3+n, all strata].",
+)
+@format_option(["table", "json", "csv", "latex"])
+@output_option
+def command(genus: int, points: int, codim: int | None, fmt: str, output: str | None) -> None:
+    """List the stable graphs of type (h, n): every boundary stratum of
+    Mbar_{h,n} with codimension at most K, once up to isomorphism fixing the
+    legs 1..n, with its automorphism count; ordered by codimension, then
+    canonically.
+
+    Graphs are written as vertices g<genus>{legs}, then after '|' the edges
+    i-j between 0-based vertex indices (i-i a loop, i-j^m for m parallel edges).
+    """
+    graphs = stable_graphs(genus, points, codim)
+    if fmt == "json":
+        text = strata_json(genus, points, graphs)
+    elif fmt == "csv":
+        text = strata_csv(graphs)
+    elif fmt == "latex":
+        text = strata_latex(graphs)
+    else:
+        text = _table(genus, points, graphs)
+    emit(text, output)
+
+
+def _table(genus: int, points: int, graphs) -> str:
+    table = Table(title=f"Strata of Mbar_{{{genus},{points}}}: {len(graphs)}")
+    for name, justify in (("#", "right"), ("codim", "right"), ("|V|", "right"), ("|Aut|", "right"), ("graph", "left")):
+        table.add_column(name, justify=justify)
+    for row in strata_rows(graphs):
+        table.add_row(*map(str, row))
+    buffer = io.StringIO()
+    Console(file=buffer, width=max(80, 40 + max(len(g.notation) for g in graphs)), color_system=None).print(table)
+    return buffer.getvalue()

@@ -172,10 +172,9 @@ def _certify(genera: tuple, edges: tuple, legs: tuple) -> tuple[tuple, list[int]
     vertex permutations preserving the colours.
     """
     n = len(genera)
-    nbrs, loops = _adjacency(n, edges)
+    nbrs, loops, valence = _adjacency(n, edges)
     legs = [tuple(sorted(x)) for x in legs]
-    valence = [len(legs[v]) + 2 * loops[v] + sum(m for _, m in nbrs[v]) for v in range(n)]
-    start = [(genera[v], len(legs[v]), legs[v], loops[v], valence[v]) for v in range(n)]
+    start = [(genera[v], len(legs[v]), legs[v], loops[v], valence[v] + len(legs[v])) for v in range(n)]
     colours = _refine(_ranks(start), nbrs, n)
     if len(set(colours)) == n:
         order, aut_v = _inverse(colours), 1
@@ -184,10 +183,14 @@ def _certify(genera: tuple, edges: tuple, legs: tuple) -> tuple[tuple, list[int]
     return _key(genera, edges, legs, order), order, aut_v
 
 
-def _adjacency(n: int, edges: tuple) -> tuple[list[list[tuple[int, int]]], list[int]]:
+def _adjacency(n: int, edges: tuple) -> tuple[list, list[int], list[int]]:
+    """Neighbours ``(u, multiplicity)``, loop counts and half-edge counts."""
     loops = [0] * n
+    ends = [0] * n
     mult: dict[tuple[int, int], int] = {}
     for a, b in edges:
+        ends[a] += 1
+        ends[b] += 1
         if a == b:
             loops[a] += 1
         else:
@@ -197,7 +200,7 @@ def _adjacency(n: int, edges: tuple) -> tuple[list[list[tuple[int, int]]], list[
     for (a, b), m in mult.items():
         nbrs[a].append((b, m))
         nbrs[b].append((a, m))
-    return nbrs, loops
+    return nbrs, loops, ends
 
 
 def _ranks(signatures: list) -> list[int]:
@@ -238,11 +241,11 @@ def _key(genera: tuple, edges: tuple, legs: list, order: list[int]) -> tuple:
     for pos, v in enumerate(order):
         inv[v] = pos
     out = [n, len(edges)]
-    out.extend(genera[v] for v in order)
+    out += [genera[v] for v in order]
     for v in order:
         out.append(len(legs[v]))
-        out.extend(legs[v])
-    out.extend(_leaf_code(edges, inv, n))
+        out += legs[v]
+    out += sorted([inv[a] * n + inv[b] if inv[a] <= inv[b] else inv[b] * n + inv[a] for a, b in edges])
     return tuple(out)
 
 

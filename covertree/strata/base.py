@@ -1,0 +1,118 @@
+"""Base strata: the boundary strata of ``Mbar_{h,b}`` over which covers degenerate.
+
+The base of a cover is a stable curve of type ``(h, b)`` whose legs ``1..b``
+are the branch points, leg ``j`` carrying the profile ``profiles[j - 1]``.
+Permuting branch points with equal profiles maps covers over one stratum to
+covers over another with the same counts, so by default the strata are
+grouped into orbits under the group ``prod S_{m_mu}`` of such permutations:
+each orbit is given by its member with the least canonical key and its size
+(the number of distinct labelled strata in it).  Two labelled strata lie in
+one orbit exactly when they become isomorphic once each leg label is replaced
+by the class of its profile, which is how orbits are found.
+
+Examples
+--------
+Six simple branch points on a rational base, codimension one: the splits
+``2|4`` and ``3|3`` of the six points.
+
+>>> strata = base_strata(0, [(2, 1)] * 6, max_codim=1)
+>>> [(s.codim, s.orbit_size) for s in strata]
+[(0, 1), (1, 15), (1, 10)]
+>>> str(strata[2].graph)
+'g0{1,2,3}, g0{4,5,6} | 0-1'
+>>> len(base_strata(0, [(2, 1)] * 6, max_codim=1, labeled=True))
+26
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+from dataclasses import dataclass
+
+from covertree.errors import ProfileError
+from covertree.graphs.canonical import _certify
+from covertree.graphs.dual_graph import StableGraph
+from covertree.graphs.enumerate import stable_graphs
+from covertree.symmetric.partitions import Partition
+
+__all__ = ["BaseStratum", "base_strata"]
+
+
+@dataclass(frozen=True)
+class BaseStratum:
+    """A stratum of the base (a representative) and the size of its orbit.
+
+    Examples
+    --------
+    >>> s = base_strata(1, [(2,)], max_codim=1)[1]
+    >>> s.graph.notation, s.orbit_size, s.codim
+    ('g0{1} | 0-0', 1, 1)
+    """
+
+    graph: StableGraph
+    orbit_size: int
+
+    @property
+    def codim(self) -> int:
+        """Codimension of the stratum (number of nodes of the base)."""
+        return self.graph.codim
+
+
+def base_strata(
+    target_genus: int,
+    profiles: Sequence[Sequence[int]],
+    max_codim: int,
+    labeled: bool = False,
+) -> list[BaseStratum]:
+    """Strata of ``Mbar_{h,b}`` (``b = len(profiles)``) up to codimension ``max_codim``.
+
+    Parameters
+    ----------
+    target_genus : int
+        Genus ``h`` of the base.
+    profiles : sequence of sequences of int
+        The profile over each branch point (leg ``j`` carries ``profiles[j-1]``);
+        profiles are compared as partitions and must have one degree.
+    max_codim : int
+        Largest codimension listed (capped at ``3h - 3 + b``).
+    labeled : bool
+        If true, every labelled stratum, each with ``orbit_size`` 1.
+
+    Returns
+    -------
+    list of BaseStratum
+        Sorted by ``(codim, key)`` of the representatives.
+
+    Raises
+    ------
+    GraphError
+        For an unstable base type or a negative ``max_codim``.
+    ProfileError
+        For a malformed profile or profiles of different degrees.
+
+    Examples
+    --------
+    >>> [(str(s.graph), s.orbit_size) for s in base_strata(0, [(2,), (2,), (1, 1), (1, 1)], 1)]
+    [('g0{1,2,3,4}', 1), ('g0{1,2}, g0{3,4} | 0-1', 1), ('g0{1,3}, g0{2,4} | 0-1', 2)]
+    """
+    classes = _profile_classes(profiles)
+    graphs = stable_graphs(target_genus, len(classes), max_codim)
+    if labeled:
+        return [BaseStratum(g, 1) for g in graphs]
+    orbits: dict[tuple, list] = {}
+    for g in graphs:
+        coloured = tuple(tuple(classes[j - 1] for j in legs) for legs in g.legs)
+        colour_key = _certify(g.genera, g.edges, coloured)[0]
+        orbits.setdefault(colour_key, [g, 0])[1] += 1
+    return [BaseStratum(g, size) for g, size in orbits.values()]
+
+
+def _profile_classes(profiles: Sequence[Sequence[int]]) -> list[int]:
+    """The class (0-based index among the distinct profiles) of each leg."""
+    parts = [Partition(mu) for mu in profiles]
+    degrees = {mu.size for mu in parts}
+    if len(degrees) > 1:
+        listed = ", ".join(str(mu) for mu in parts)
+        raise ProfileError(f"the profiles {listed} are not all of one degree")
+    distinct = sorted(set(parts), reverse=True)
+    return [distinct.index(mu) for mu in parts]
