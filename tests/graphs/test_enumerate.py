@@ -1,0 +1,106 @@
+"""Enumeration of stable graphs: completeness via automorphism sums, and
+properties of the list."""
+
+from fractions import Fraction
+from itertools import product
+from math import factorial
+
+import pytest
+
+from covertree.errors import GraphError
+from covertree.graphs import StableGraph, stable_graphs
+
+
+def _connected(n, edges):
+    parent = list(range(n))
+
+    def find(v):
+        while parent[v] != v:
+            v = parent[v]
+        return v
+
+    for a, b in edges:
+        parent[find(a)] = find(b)
+    return len({find(v) for v in range(n)}) == 1
+
+
+def brute_mass(genus, n, n_edges):
+    """sum 1/|Aut G| over stable graphs with n_edges edges, by counting
+    fully labelled structures.
+
+    A labelled structure has vertices 0..V-1 with genera, E edges each with an
+    ordered pair of ends, and a vertex for each leg.  The group
+    S_V x (S_E acting on edges, (Z/2)^E flipping them) acts on these with
+    stabilisers the half-edge automorphism groups, so the orbit-weighted sum is
+    the number of structures divided by V! E! 2^E.
+    """
+    total = Fraction(0)
+    for n_vertices in range(1, n_edges + 2):
+        genus_sum = genus - (n_edges - n_vertices + 1)
+        if genus_sum < 0:
+            continue
+        count = 0
+        for ends in product(range(n_vertices), repeat=2 * n_edges):
+            edges = list(zip(ends[0::2], ends[1::2]))
+            if not _connected(n_vertices, edges):
+                continue
+            degree = [0] * n_vertices
+            for v in ends:
+                degree[v] += 1
+            for genera in product(range(genus_sum + 1), repeat=n_vertices):
+                if sum(genera) != genus_sum:
+                    continue
+                for at in product(range(n_vertices), repeat=n):
+                    valence = degree[:]
+                    for v in at:
+                        valence[v] += 1
+                    if all(2 * g - 2 + valence[v] > 0 for v, g in enumerate(genera)):
+                        count += 1
+        total += Fraction(count, factorial(n_vertices) * factorial(n_edges) * 2**n_edges)
+    return total
+
+
+@pytest.mark.parametrize(
+    "genus, n",
+    [(2, 0), (1, 1), (1, 2), (0, 5), (1, 3), (2, 1), (3, 0)],
+)
+def test_automorphism_sums_match_brute_force(genus, n):
+    top = 3 * genus - 3 + n
+    for k in range(min(top, 3) + 1):
+        listed = sum(Fraction(1, g.automorphisms) for g in stable_graphs(genus, n) if g.codim == k)
+        assert listed == brute_mass(genus, n, k), (genus, n, k)
+
+
+@pytest.mark.parametrize("genus, n", [(0, 6), (1, 3), (2, 2), (3, 1), (4, 0)])
+def test_list_is_sorted_distinct_stable_and_of_the_type(genus, n):
+    graphs = stable_graphs(genus, n)
+    assert [(g.codim, g.key) for g in graphs] == sorted((g.codim, g.key) for g in graphs)
+    assert len(set(graphs)) == len(graphs)
+    for g in graphs:
+        assert isinstance(g, StableGraph) and g.is_stable()
+        assert g.genus == genus
+        assert sorted(j for legs in g.legs for j in legs) == list(range(1, n + 1))
+
+
+def test_max_codim_truncates_and_caps():
+    full = stable_graphs(2, 1)
+    assert stable_graphs(2, 1, max_codim=2) == [g for g in full if g.codim <= 2]
+    assert stable_graphs(2, 1, max_codim=99) == full
+    assert [str(g) for g in stable_graphs(0, 5, max_codim=0)] == ["g0{1,2,3,4,5}"]
+
+
+@pytest.mark.parametrize("genus, n", [(0, 0), (0, 1), (0, 2), (1, 0), (-1, 4), (2, -1)])
+def test_unstable_types_are_rejected(genus, n):
+    with pytest.raises(GraphError):
+        stable_graphs(genus, n)
+
+
+def test_negative_codimension_is_rejected():
+    with pytest.raises(GraphError, match="codimension"):
+        stable_graphs(2, 0, max_codim=-1)
+
+
+def test_results_are_fresh_lists():
+    first = stable_graphs(0, 4)
+    first.clear()
+    assert len(stable_graphs(0, 4)) == 4

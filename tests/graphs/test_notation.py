@@ -1,0 +1,84 @@
+"""The one-line graph notation: exact round trips and error positions."""
+
+import pytest
+
+from covertree.errors import NotationError
+from covertree.graphs import DualGraph, StableGraph, format_graph, parse_graph, stable_graphs
+
+
+@pytest.mark.parametrize("genus, n", [(0, 6), (1, 3), (2, 2), (3, 0), (3, 1), (4, 0)])
+def test_round_trip_on_every_stratum(genus, n):
+    for g in stable_graphs(genus, n):
+        text = format_graph(g)
+        back = parse_graph(text)
+        assert back == g and isinstance(back, StableGraph)
+        assert (back.genera, back.edges, back.legs) == (g.genera, g.edges, g.legs)
+        assert format_graph(back) == text
+
+
+def test_round_trip_of_unstable_graphs():
+    # sources of covers: rational tails and bridges, long chains
+    chain = DualGraph([0] * 6, [(i, i + 1) for i in range(5)], [[1], [], [], [], [], [2]])
+    tail = DualGraph([1, 0, 0], [(0, 1), (1, 2), (2, 2)], [[], [], []])
+    for g in (chain, tail):
+        back = parse_graph(g.notation)
+        assert back == g and type(back) is DualGraph and not back.is_stable()
+
+
+def test_multiplicity_shorthand_and_loops():
+    g = parse_graph("g0, g0, g1{4} | 0-1^3, 1-2, 2-2^2, 0-0")
+    assert g.n_edges == 7
+    assert sum(1 for a, b in g.edges if a == b) == 3
+    assert str(g).count("^") == 2
+    # 3! on the triple edge, 2 for the single loop, 2! * 2^2 for the double loop
+    assert g.automorphisms == 6 * 2 * 8
+    assert parse_graph("g0,g0,g1{4}|0-1,0-1,0-1,1-2,2-2,2-2,0-0") == g
+
+
+def test_whitespace_is_ignored_between_tokens():
+    a = parse_graph("g2{1,2},g0{3}|0-1,1-1")
+    b = parse_graph("  g2 { 1 , 2 } ,\tg0{ 3 }\n|  0 - 1 , 1-1  ")
+    assert a == b
+
+
+def test_input_order_does_not_matter():
+    a = parse_graph("g1{2}, g0{1} | 1-0")
+    b = parse_graph("g0{1}, g1{2} | 0-1")
+    assert a == b and str(a) == str(b)
+
+
+def test_empty_leg_braces_and_bare_bar():
+    assert parse_graph("g2{}") == parse_graph("g2 |") == StableGraph([2], [])
+
+
+@pytest.mark.parametrize(
+    "text, column, fragment",
+    [
+        ("", 0, "'g'"),
+        ("g", 1, "genus"),
+        ("g0{1,", 5, "leg label"),
+        ("g0{1 2}", 5, "',' or '}'"),
+        ("g0{1} g0", 6, "',' or '|'"),
+        ("g0, g0 | 0 1", 11, "'-'"),
+        ("g0, g0 | 0-1^", 13, "multiplicity"),
+        ("g0, g0 | 0-1^0", 13, "at least 1"),
+        ("g0, g0 | 0-5", 11, "out of range"),
+        ("g0, g0 | 0-1 x", 13, "',' or the end"),
+        ("h0", 0, "'g'"),
+    ],
+)
+def test_errors_name_the_column(text, column, fragment):
+    with pytest.raises(NotationError) as info:
+        parse_graph(text)
+    message = str(info.value)
+    assert message.startswith(f"column {column}:")
+    assert fragment in message
+
+
+@pytest.mark.parametrize(
+    "text, fragment",
+    [("g0, g0", "disconnected"), ("g0{1}, g0{1} | 0-1", "twice")],
+)
+def test_invalid_graphs_raise_notation_errors(text, fragment):
+    with pytest.raises(NotationError, match=fragment):
+        parse_graph(text)
