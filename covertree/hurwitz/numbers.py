@@ -52,10 +52,11 @@ point): ``sigma_1(3)/3`` connected, ``p(3) = 3`` disconnected.
 
 from __future__ import annotations
 
+from collections import Counter
 from collections.abc import Sequence
 from fractions import Fraction
 from functools import lru_cache
-from itertools import product
+from itertools import combinations_with_replacement, product
 from math import comb, factorial, prod
 
 from covertree.errors import ProblemError, ProfileError
@@ -112,19 +113,41 @@ def _transitive(h: int, m: int, profiles: Profiles) -> int:
     """``T(m; profiles)``: the transitive tuples, by the recursion on the orbit
     of sheet 0 (see the module docstring)."""
     total = _tuples(h, m, profiles)
+    groups = sorted(Counter(profiles).items())
     for k in range(1, m):
         binom = comb(m - 1, k - 1)
-        choices = [sub_partitions(mu, k) for mu in profiles]
-        for nus in product(*choices):
-            inside = tuple(sorted(tuple(nu) for nu in nus))
+        for weight, inside, outside in _splits(groups, k):
             t = _transitive(h, k, inside)
-            if not t:
-                continue
-            outside = tuple(
-                sorted(tuple(difference(mu, nu)) for mu, nu in zip(profiles, nus))
-            )
-            total -= binom * t * _tuples(h, m - k, outside)
+            if t:
+                total -= binom * weight * t * _tuples(h, m - k, outside)
     return total
+
+
+def _splits(groups: list[tuple[tuple[int, ...], int]], k: int):
+    """Every way to choose, at each branch point, the cycles ``nu`` inside the
+    orbit (a sub-multiset of size ``k`` of its profile), up to permuting the
+    points with equal profiles: yields ``(number of ways, inside, outside)``
+    with ``inside``/``outside`` the sorted lists of ``nu`` and ``mu - nu``.
+    Equal profiles are handled by multisets of choices with multinomial weights,
+    so many simple points cost a handful of cases, not ``2^b``."""
+    per_group = []
+    for mu, count in groups:
+        options = [(tuple(nu), tuple(difference(mu, nu))) for nu in sub_partitions(mu, k)]
+        if not options:
+            return
+        choices = []
+        for combo in combinations_with_replacement(range(len(options)), count):
+            ways = factorial(count)
+            for c in Counter(combo).values():
+                ways //= factorial(c)
+            choices.append((ways, [options[i] for i in combo]))
+        per_group.append(choices)
+    for pick in product(*per_group):
+        weight = prod(ways for ways, _ in pick)
+        pairs = [pair for _, chosen in pick for pair in chosen]
+        inside = tuple(sorted(nu for nu, _ in pairs))
+        outside = tuple(sorted(rest for _, rest in pairs))
+        yield weight, inside, outside
 
 
 def tuple_counts(
