@@ -1,9 +1,67 @@
-"""The `covertree count` command (being written)."""
+"""The ``covertree count`` command: connected and disconnected Hurwitz numbers."""
+
+from __future__ import annotations
+
+import io
 
 import click
+from rich.console import Console
+from rich.table import Table
+
+from covertree.cli.params import PROFILE, emit, format_option, output_option
+from covertree.errors import InputError
+from covertree.export.counts import COUNT_COLUMNS, count_row, counts_csv, counts_json, counts_latex
+from covertree.hurwitz.numbers import hurwitz_numbers
+from covertree.hurwitz.problem import HurwitzProblem
 
 
-@click.command("count")
-def command() -> None:
-    """Not available yet."""
-    raise click.UsageError("'count' is not available in this build")
+class _OneLineUsage(click.Command):
+    """Report a bad option value (malformed profile, non-integer, missing
+    option) as one line on stderr with exit status 2, like the library's input
+    errors, instead of click's usage block."""
+
+    def make_context(self, info_name, args, parent=None, **extra):
+        try:
+            return super().make_context(info_name, args, parent=parent, **extra)
+        except click.UsageError as error:
+            raise InputError(error.format_message()) from None
+
+
+@click.command("count", cls=_OneLineUsage)
+@click.option("--genus", "-g", "genus", type=int, default=None,
+              help="Genus g of the connected source; missing branch points are simple "
+                   "[default: the profiles are complete and g follows].")
+@click.option("--target-genus", "-t", "target_genus", type=int, required=True,
+              help="Genus h of the target.")
+@click.option("--degree", "-d", "degree", type=int, required=True, help="Degree d of the cover.")
+@click.option("--profile", "-p", "profiles", type=PROFILE, multiple=True,
+              help="Profile over the next branch point, e.g. 3,1 or 2,1^3 (repeatable, in order).")
+@format_option(["table", "json", "csv", "latex"])
+@output_option
+def command(genus, target_genus, degree, profiles, fmt, output) -> None:
+    """Count degree-D covers of a genus-H curve with the given profiles over
+    labelled branch points: connected and disconnected Hurwitz numbers, each
+    cover weighted by 1/|Aut|, preimages unlabelled."""
+    problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles)
+    connected, disconnected = hurwitz_numbers(problem)
+    if fmt == "json":
+        text = counts_json(problem, connected, disconnected)
+    elif fmt == "csv":
+        text = counts_csv(problem, connected, disconnected)
+    elif fmt == "latex":
+        text = counts_latex(problem, connected, disconnected)
+    else:
+        text = _table(problem, connected, disconnected)
+    emit(text, output)
+
+
+def _table(problem, connected, disconnected) -> str:
+    table = Table(title="Hurwitz numbers (labelled branch points, weight 1/|Aut|)")
+    for name in COUNT_COLUMNS:
+        table.add_column(name.replace("_", " "), justify="left" if name == "profiles" else "right")
+    row = count_row(problem, connected, disconnected)
+    table.add_row(*map(str, row))
+    buffer = io.StringIO()
+    width = max(80, 60 + sum(len(str(cell)) for cell in row))
+    Console(file=buffer, width=width, color_system=None).print(table)
+    return buffer.getvalue()
