@@ -7,6 +7,7 @@ import io
 import click
 from rich.console import Console
 from rich.table import Table
+from rich.text import Text
 
 from covertree.cli.params import emit, format_option, output_option
 from covertree.export.graphs import strata_csv, strata_json, strata_latex, strata_rows
@@ -14,8 +15,12 @@ from covertree.graphs.enumerate import stable_graphs
 
 
 @click.command("strata")
-@click.option("--target-genus", "-t", "genus", type=int, required=True, help="Genus h of the target.")
-@click.option("--points", "-n", "points", type=int, required=True, help="Number n of marked (branch) points.")
+@click.option(
+    "--target-genus", "-t", "genus", type=int, required=True, help="Genus h of the target."
+)
+@click.option(
+    "--points", "-n", "points", type=int, required=True, help="Number n of marked (branch) points."
+)
 @click.option(
     "--codim",
     "-k",
@@ -43,16 +48,19 @@ def command(genus: int, points: int, codim: int | None, fmt: str, output: str | 
     elif fmt == "latex":
         text = strata_latex(graphs)
     else:
-        text = _table(genus, points, graphs)
+        text = _table(genus, points, codim, graphs)
     emit(text, output)
 
 
-def _table(genus: int, points: int, graphs) -> str:
-    table = Table(title=f"Strata of Mbar_{{{genus},{points}}}: {len(graphs)}")
-    for name, justify in (("#", "right"), ("codim", "right"), ("|V|", "right"), ("|Aut|", "right"), ("graph", "left")):
-        table.add_column(name, justify=justify)
+def _table(genus: int, points: int, codim: int | None, graphs) -> str:
+    limit = "" if codim is None or codim >= 3 * genus - 3 + points else f" of codim <= {codim}"
+    table = Table(title=f"Strata of Mbar_{{{genus},{points}}}{limit}: {len(graphs)}")
+    for name in ("#", "codim", "|V|", "|Aut|"):
+        table.add_column(name, justify="right")
+    table.add_column("graph", justify="left")
     for row in strata_rows(graphs):
-        table.add_row(*map(str, row))
+        table.add_row(*(Text(str(cell)) for cell in row))
     buffer = io.StringIO()
-    Console(file=buffer, width=max(80, 40 + max(len(g.notation) for g in graphs)), color_system=None).print(table)
+    width = max(80, 40 + max(len(g.notation) for g in graphs))
+    Console(file=buffer, width=width, color_system=None).print(table)
     return buffer.getvalue()

@@ -94,7 +94,8 @@ def stable_graphs(genus: int, n: int, max_codim: int | None = None) -> list[Stab
         raise GraphError(f"the codimension must be an integer >= 0, got {max_codim!r}")
     out: list[StableGraph] = []
     for k in range(min(max_codim, top) + 1):
-        out.extend(StableGraph._from_canonical(*raw[1:4], raw[0], raw[4]) for raw in _layer(genus, n, k))
+        for key, genera, edges, legs, aut_v in _layer(genus, n, k):
+            out.append(StableGraph._from_canonical(genera, edges, legs, key, aut_v))
     return out
 
 
