@@ -11,6 +11,11 @@ A :class:`DualGraph` is normalised to canonical form by its constructor, so
 ``==`` and ``hash`` compare isomorphism classes (fixing every leg label) and
 the stored vertex and edge order is canonical.
 
+References
+----------
+E. Arbarello, M. Cornalba, P. Griffiths, *Geometry of Algebraic Curves II*
+(2011), chapter X, section 2 (stable graphs and their automorphisms).
+
 Examples
 --------
 >>> g = DualGraph([0, 1], [(1, 0)], [[], [2, 1]])

@@ -10,6 +10,11 @@ each orbit is given by its member with the least canonical key and its size
 one orbit exactly when they become isomorphic once each leg label is replaced
 by the class of its profile, which is how orbits are found.
 
+References
+----------
+J. Harris and D. Mumford, *On the Kodaira dimension of the moduli space of
+curves*, Invent. Math. 67 (1982): admissible covers over stable pointed bases.
+
 Examples
 --------
 Six simple branch points on a rational base, codimension one: the splits
