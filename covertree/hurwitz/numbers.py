@@ -60,7 +60,7 @@ from itertools import combinations_with_replacement, product
 from math import comb, factorial, prod
 
 from covertree.errors import ProblemError, ProfileError
-from covertree.hurwitz.problem import HurwitzProblem
+from covertree.hurwitz.problem import HurwitzProblem, _check_degree
 from covertree.symmetric.characters import central_characters, dimensions
 from covertree.symmetric.partitions import Partition, difference, sub_partitions
 
@@ -70,8 +70,7 @@ Profiles = tuple[tuple[int, ...], ...]
 
 
 def _normalise(degree: int, target_genus: int, profiles: Sequence[Sequence[int]]) -> Profiles:
-    if not isinstance(degree, int) or isinstance(degree, bool) or degree < 1:
-        raise ProblemError(f"degree {degree!r} is not allowed; the degree must be a positive integer")
+    _check_degree(degree)
     if not isinstance(target_genus, int) or isinstance(target_genus, bool) or target_genus < 0:
         raise ProblemError(
             f"target genus {target_genus!r} is not allowed; allowed: 0, 1, 2, ..."

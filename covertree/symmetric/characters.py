@@ -40,7 +40,7 @@ from functools import lru_cache
 from math import factorial
 
 from covertree.errors import ProfileError
-from covertree.symmetric.partitions import Partition, _partitions, partitions_of
+from covertree.symmetric.partitions import Partition, _partitions, class_size, partitions_of
 
 __all__ = [
     "character",
@@ -58,6 +58,13 @@ def _normal(parts: Iterable[int]) -> tuple[int, ...]:
     if any(p < 0 for p in t):
         raise ProfileError(f"partition {t} has a negative part")
     return t
+
+
+def _pair(lam: Iterable[int], mu: Iterable[int]) -> tuple[tuple[int, ...], tuple[int, ...]]:
+    lam_t, mu_t = _normal(lam), _normal(mu)
+    if sum(lam_t) != sum(mu_t):
+        raise ProfileError(f"lambda {lam_t} and mu {mu_t} are partitions of different integers")
+    return lam_t, mu_t
 
 
 def _mask(lam: tuple[int, ...]) -> int:
@@ -155,19 +162,8 @@ def character(lam: Iterable[int], mu: Iterable[int]) -> int:
     >>> character((1, 1, 1, 1), (2, 1, 1))
     -1
     """
-    lam_t, mu_t = _normal(lam), _normal(mu)
-    if sum(lam_t) != sum(mu_t):
-        raise ProfileError(
-            f"lambda {lam_t} and mu {mu_t} are partitions of different integers"
-        )
+    lam_t, mu_t = _pair(lam, mu)
     return _mn(_mask(lam_t), mu_t)
-
-
-def _class_size(mu: tuple[int, ...]) -> int:
-    size = factorial(sum(mu)) // Partition(mu).aut()
-    for p in mu:
-        size //= p
-    return size
 
 
 def _central(mask: int, mu: tuple[int, ...], size: int) -> int:
@@ -187,12 +183,8 @@ def central_character(lam: Iterable[int], mu: Iterable[int]) -> int:
     >>> central_character((3,), (2, 1))
     3
     """
-    lam_t, mu_t = _normal(lam), _normal(mu)
-    if sum(lam_t) != sum(mu_t):
-        raise ProfileError(
-            f"lambda {lam_t} and mu {mu_t} are partitions of different integers"
-        )
-    return _central(_mask(lam_t), mu_t, _class_size(mu_t))
+    lam_t, mu_t = _pair(lam, mu)
+    return _central(_mask(lam_t), mu_t, class_size(mu_t))
 
 
 @lru_cache(maxsize=None)
@@ -245,5 +237,5 @@ def central_characters(mu: Iterable[int]) -> tuple[int, ...]:
 
 @lru_cache(maxsize=None)
 def _central_column(mu: tuple[int, ...]) -> tuple[int, ...]:
-    size = _class_size(mu)
+    size = class_size(mu)
     return tuple(_central(mask, mu, size) for mask in _masks(sum(mu)))

@@ -24,8 +24,14 @@ from functools import lru_cache
 from itertools import permutations
 from math import factorial, prod
 
-from covertree.symmetric.permutations import commutator, compose, cycle_type, inverse
-from covertree.symmetric.permutations import is_transitive
+from covertree.symmetric.partitions import class_size
+from covertree.symmetric.permutations import (
+    commutator,
+    compose,
+    cycle_type,
+    inverse,
+    is_transitive,
+)
 
 
 class _Group:
@@ -65,16 +71,9 @@ def _group(d: int) -> _Group:
 
 def cost(degree: int, target_genus: int, profiles: Sequence[Sequence[int]]) -> int:
     """Number of inner iterations :func:`count_tuples` will make (to skip big cases)."""
-    sizes = [factorial(degree) // _z(mu) for mu in profiles]
+    sizes = [class_size(mu) for mu in profiles]
     inner = prod(sizes[1:-1]) if target_genus == 0 else prod(sizes[1:])
     return inner * (factorial(degree) if target_genus == 1 else 1)
-
-
-def _z(mu: Sequence[int]) -> int:
-    out = prod(mu)
-    for part in set(mu):
-        out *= factorial(list(mu).count(part))
-    return out
 
 
 def count_tuples(
