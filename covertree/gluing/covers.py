@@ -1,0 +1,253 @@
+"""Admissible covers over a fixed curve of a base stratum, up to isomorphism.
+
+For every choice of local covers at the base vertices whose profiles agree
+across each node (the balancing condition), the matchings of node preimages
+(ports) are enumerated, connected sources kept, and each isomorphism class
+reported once, with ``|Aut f|`` and ``mult(f) = prod_q prod_i e_{q,i}``
+(THEORY.md section 3).
+
+Symmetry breaking
+-----------------
+Matchings are generated port by port.  A port may be matched into a piece none
+of whose ports is matched yet (a *pristine* piece) only if no earlier identical
+pristine piece over the same vertex exists and the port is least in its orbit
+under the piece's deck group: both moves are automorphisms of the partial
+matching, so every class is still reached; the classes reached more than once
+are merged by their canonical code (:mod:`covertree.gluing.structure`).
+
+Examples
+--------
+Double covers of an elliptic curve branched at two points, over the stratum of
+a rational curve with one node (three covers, total weight 2):
+
+>>> from fractions import Fraction
+>>> from covertree.graphs.dual_graph import StableGraph
+>>> base = StableGraph([0], [(0, 0)], [[1, 2]])
+>>> covers = list(glued_covers(base, 2, [(2,), (2,)]))
+>>> sorted((c.edge_profiles, c.automorphisms, c.multiplicity) for c in covers)
+[(((1, 1),), 2, 1), (((1, 1),), 2, 1), (((2,),), 2, 2)]
+>>> sum(Fraction(c.multiplicity, c.automorphisms) for c in covers)
+Fraction(2, 1)
+"""
+
+from __future__ import annotations
+
+from collections.abc import Iterator, Sequence
+from dataclasses import dataclass
+from functools import lru_cache
+from math import prod
+
+from covertree.graphs.dual_graph import DualGraph
+from covertree.gluing.structure import Glued, Port, canonical_code
+from covertree.monodromy.local import LocalCover, local_covers, special_points
+from covertree.monodromy.pieces import Piece
+
+
+@dataclass(frozen=True)
+class GluedCover:
+    """One admissible cover, as raw data (source vertices are pieces).
+
+    Attributes
+    ----------
+    code : tuple
+        Canonical code (equal iff isomorphic).
+    automorphisms, multiplicity : int
+    edge_profiles : tuple of tuple of int
+        Profile over each base node, in the base's edge order.
+    source_genera, source_vertex_over, source_degrees : tuple of int
+        Per source component: genus, base vertex below, degree.
+    source_edges : tuple of (int, int)
+        Source nodes as pairs of components (over side 0, over side 1).
+    source_edge_over, source_edge_index : tuple of int
+        Per source node: the base edge below and the ramification index.
+    """
+
+    code: tuple
+    automorphisms: int
+    multiplicity: int
+    edge_profiles: tuple[tuple[int, ...], ...]
+    source_genera: tuple[int, ...]
+    source_vertex_over: tuple[int, ...]
+    source_degrees: tuple[int, ...]
+    source_edges: tuple[tuple[int, int], ...]
+    source_edge_over: tuple[int, ...]
+    source_edge_index: tuple[int, ...]
+
+
+@lru_cache(maxsize=256)
+def _local_covers(degree: int, genus: int, profiles: tuple) -> tuple[LocalCover, ...]:
+    return tuple(local_covers(degree, genus, profiles))
+
+
+def glued_covers(base: DualGraph, degree: int, profiles: Sequence[Sequence[int]]) -> Iterator[GluedCover]:
+    """Every admissible cover with connected source over a fixed curve of type
+    ``base`` (legs ``j`` of profile ``profiles[j-1]``), each class once, in a
+    deterministic order, streamed as found."""
+    specs = special_points(base)
+    options = []
+    for v, spec in enumerate(specs):
+        prof = tuple(tuple(profiles[s[1] - 1]) if s[0] == "leg" else None for s in spec)
+        options.append(_local_covers(degree, base.genera[v], prof))
+    for choice in _balanced_choices(base, specs, options):
+        yield from _gluings(base, specs, choice)
+
+
+def _half_index(specs: list, v: int, k: int, side: int) -> int:
+    return specs[v].index(("half", k, side))
+
+
+def _balanced_choices(base: DualGraph, specs: list, options: list) -> Iterator[list[LocalCover]]:
+    """Choices of one local cover per vertex with equal profiles across nodes."""
+    checks: list[list[tuple]] = [[] for _ in specs]
+    for k, (i, j) in enumerate(base.edges):
+        later = max(i, j)
+        checks[later].append((i, _half_index(specs, i, k, 0), j, _half_index(specs, j, k, 1)))
+    chosen: list[LocalCover] = []
+
+    def rec(v: int) -> Iterator[list[LocalCover]]:
+        if v == len(specs):
+            yield list(chosen)
+            return
+        for cover in options[v]:
+            chosen.append(cover)
+            if all(chosen[a].profiles[pa] == chosen[b].profiles[pb] for a, pa, b, pb in checks[v]):
+                yield from rec(v + 1)
+            chosen.pop()
+
+    yield from rec(0)
+
+
+class _Matcher:
+    """Enumerates the port matchings of one choice of local covers."""
+
+    def __init__(self, base: DualGraph, specs: list, choice: list[LocalCover]) -> None:
+        self.vertex = [v for v, cover in enumerate(choice) for _ in cover.pieces]
+        self.pieces: list[Piece] = [p for cover in choice for p in cover.pieces]
+        self.halves = [
+            [p for p, s in enumerate(specs[v]) if s[0] == "half"] for v in self.vertex
+        ]
+        self.glued = Glued(self.vertex, self.pieces, self.halves, {})
+        self.sides = [self._side_ports(base, specs, k) for k in self._edge_order(base)]
+        self.twins = self._twins()
+        self.least = self._least_ports()
+        self.touched = [0] * len(self.pieces)
+        self.used: set[Port] = set()
+
+    @staticmethod
+    def _edge_order(base: DualGraph) -> list[int]:
+        """Loops first: they break the most symmetry."""
+        return sorted(range(base.n_edges), key=lambda k: (base.edges[k][0] != base.edges[k][1], k))
+
+    def _side_ports(self, base: DualGraph, specs: list, k: int) -> tuple[list, list, int]:
+        ends = []
+        for side in (0, 1):
+            v = base.edges[k][side]
+            p = _half_index(specs, v, k, side)
+            ends.append([
+                ((i, p, c), len(cyc))
+                for i in range(len(self.pieces)) if self.vertex[i] == v
+                for c, cyc in enumerate(self.glued.port_cycles[i][p])
+            ])
+        return ends[0], ends[1], k
+
+    def _twins(self) -> list[list[int]]:
+        """Earlier pieces over the same vertex with the same permutations."""
+        return [
+            [i for i in range(j) if self.vertex[i] == self.vertex[j] and self.pieces[i].gens == self.pieces[j].gens]
+            for j in range(len(self.pieces))
+        ]
+
+    def _least_ports(self) -> set[Port]:
+        """Ports least in their orbit under their piece's deck group."""
+        out = set()
+        for j, piece in enumerate(self.pieces):
+            for p in self.halves[j]:
+                cyc = self.glued.port_cycles[j][p]
+                where = {x: c for c, cy in enumerate(cyc) for x in cy}
+                for c, cy in enumerate(cyc):
+                    if c == min(where[g[cy[0]]] for g in piece.centraliser):
+                        out.add((j, p, c))
+        return out
+
+    def matchings(self) -> Iterator[dict[Port, Port]]:
+        yield from self._match(0, 0)
+
+    def _match(self, e: int, t: int) -> Iterator[dict[Port, Port]]:
+        if e == len(self.sides):
+            yield self.glued.partner
+            return
+        left, right, _ = self.sides[e]
+        if t == len(left):
+            yield from self._match(e + 1, 0)
+            return
+        port, length = left[t]
+        for cand, clen in right:
+            if clen != length or cand in self.used or not self._allowed(port[0], cand):
+                continue
+            self._pair(port, cand, +1)
+            yield from self._match(e, t + 1)
+            self._pair(port, cand, -1)
+
+    def _allowed(self, owner: int, cand: Port) -> bool:
+        q = cand[0]
+        if q == owner or self.touched[q]:
+            return True
+        if any(not self.touched[i] and i != owner for i in self.twins[q]):
+            return False
+        return cand in self.least
+
+    def _pair(self, a: Port, b: Port, step: int) -> None:
+        self.touched[a[0]] += step
+        self.touched[b[0]] += step
+        if step > 0:
+            self.used.add(b)
+            self.glued.partner[a], self.glued.partner[b] = b, a
+        else:
+            self.used.discard(b)
+            del self.glued.partner[a], self.glued.partner[b]
+
+    def connected(self) -> bool:
+        parent = list(range(len(self.pieces)))
+
+        def find(i: int) -> int:
+            while parent[i] != i:
+                parent[i] = parent[parent[i]]
+                i = parent[i]
+            return i
+
+        for a, b in self.glued.partner.items():
+            parent[find(a[0])] = find(b[0])
+        return len({find(i) for i in range(len(self.pieces))}) == 1
+
+
+def _gluings(base: DualGraph, specs: list, choice: list[LocalCover]) -> Iterator[GluedCover]:
+    m = _Matcher(base, specs, choice)
+    edge_profiles = tuple(
+        choice[base.edges[k][0]].profiles[_half_index(specs, base.edges[k][0], k, 0)]
+        for k in range(base.n_edges)
+    )
+    mult = prod(x for prof in edge_profiles for x in prof)
+    seen: set[tuple] = set()
+    for partner in m.matchings():
+        if not m.connected():
+            continue
+        code, aut = canonical_code(m.glued)
+        if code in seen:
+            continue
+        seen.add(code)
+        yield _record(m, code, aut, mult, edge_profiles)
+
+
+def _record(m: _Matcher, code: tuple, aut: int, mult: int, edge_profiles: tuple) -> GluedCover:
+    edges, over, index = [], [], []
+    for left, _right, k in m.sides:
+        for port, length in left:
+            other = m.glued.partner[port]
+            edges.append((port[0], other[0]))
+            over.append(k)
+            index.append(length)
+    return GluedCover(
+        code, aut, mult, edge_profiles,
+        tuple(p.genus for p in m.pieces), tuple(m.vertex), tuple(p.degree for p in m.pieces),
+        tuple(edges), tuple(over), tuple(index),
+    )
