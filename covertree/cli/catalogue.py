@@ -1,9 +1,137 @@
-"""The `covertree catalogue` command (being written)."""
+"""The ``covertree catalogue`` command: every admissible cover over the boundary."""
+
+from __future__ import annotations
+
+import sys
 
 import click
+from rich.table import Table
+
+from covertree.catalogue.catalogue import (
+    DEFAULT_MAX_COVERS, Catalogue, StratumResult, build_catalogue, iter_stratum, problem_hurwitz,
+    select_strata,
+)
+from covertree.cli.params import PROFILE, AtomicOutput, OneLineCommand, emit, format_option, output_option
+from covertree.catalogue.covers import divisor_name
+from covertree.cli.render import each_with_progress, table_text
+from covertree.export.catalogue import catalogue_to_csv, catalogue_to_json, catalogue_to_latex, cover_to_jsonl
+from covertree.export.rational import rational_str
+from covertree.graphs.notation import parse_graph
+from covertree.hurwitz.problem import HurwitzProblem
 
 
-@click.command("catalogue")
-def command() -> None:
-    """Not available yet."""
-    raise click.UsageError("'catalogue' is not available in this build")
+def problem_options(func):
+    """The options naming a Hurwitz problem (shared by catalogue-like commands)."""
+    options = [
+        click.option("--genus", "-g", "genus", type=int, default=None,
+                     help="Genus of the connected source; missing branch points are simple."),
+        click.option("--target-genus", "-t", "target_genus", type=int, required=True, help="Genus of the target."),
+        click.option("--degree", "-d", "degree", type=int, required=True, help="Degree of the cover."),
+        click.option("--profile", "-p", "profiles", type=PROFILE, multiple=True,
+                     help="Profile over the next branch point, e.g. 3,1 (repeatable, in order)."),
+    ]
+    for option in reversed(options):
+        func = option(func)
+    return func
+
+
+@click.command("catalogue", cls=OneLineCommand)
+@problem_options
+@click.option("--codim", "-k", "codim", type=click.IntRange(min=0), default=1, show_default=True,
+              help="List the base strata of codimension up to this (0 = smooth covers only).")
+@click.option("--stratum", "-s", "stratum", default=None, help="Only this base stratum (graph notation).")
+@click.option("--labeled", "-l", is_flag=True, help="List every labelled stratum, not one per orbit.")
+@click.option("--max-covers", "-m", "max_covers", type=click.IntRange(min=1), default=DEFAULT_MAX_COVERS,
+              show_default=True, help="Stop with an error rather than list more covers than this.")
+@click.option("--standalone", is_flag=True, help="LaTeX: a complete document.")
+@format_option(["table", "json", "jsonl", "csv", "latex"])
+@output_option
+def command(genus, target_genus, degree, profiles, codim, stratum, labeled, max_covers, standalone, fmt, output):
+    """List every admissible cover over a fixed curve of each boundary stratum of
+    the target: source and stable source, |Aut|, multiplicity, weight; check
+    that each stratum's weights add up to the Hurwitz number."""
+    problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles)
+    graph = parse_graph(stratum) if stratum is not None else None
+    if fmt == "jsonl":
+        failures = _stream(problem, codim, graph, labeled, max_covers, output)
+    else:
+        cat = build_catalogue(problem, codim, graph, labeled, max_covers)
+        emit(_render(cat, fmt, standalone), output)
+        failures = [(s.base.graph.notation, s.total_weight, s.hurwitz_number) for s in cat.failures]
+    _report(failures)
+
+
+def _render(cat: Catalogue, fmt: str, standalone: bool) -> str:
+    if fmt == "json":
+        return catalogue_to_json(cat)
+    if fmt == "csv":
+        return catalogue_to_csv(cat)
+    if fmt == "latex":
+        return catalogue_to_latex(cat, standalone)
+    return catalogue_table(cat)
+
+
+def _stream(problem, codim, graph, labeled, max_covers, output) -> list:
+    """JSON lines, one per cover, written as found; returns the failed strata."""
+    hurwitz = problem_hurwitz(problem)
+    strata = select_strata(problem, codim, graph, labeled)
+    budget, failures = [max_covers], []
+    with AtomicOutput(output) as out:
+        for base in each_with_progress(strata, len(strata), "strata", lambda b: b.graph.notation):
+            total = 0
+            for cover in iter_stratum(problem, base, budget):
+                total += cover.weight
+                out.write(cover_to_jsonl(base, cover) + "\n")
+            if total != hurwitz:
+                failures.append((base.graph.notation, total, hurwitz))
+    return failures
+
+
+def _report(failures: list) -> None:
+    """Say loudly on stderr that a degeneration identity failed, and exit 1."""
+    for notation, total, hurwitz in failures:
+        click.echo(
+            f"covertree: BUG: the degeneration identity FAILS over {notation}: total weight "
+            f"{rational_str(total)} != Hurwitz number {rational_str(hurwitz)}",
+            err=True,
+        )
+    if failures:
+        sys.exit(1)
+
+
+def _stratum_table(s: StratumResult) -> Table:
+    verdict = "holds" if s.identity_holds else "FAILS"
+    table = Table(
+        title=f"base {s.base.graph.notation}  (codim {s.base.graph.codim}, orbit {s.base.orbit_size})",
+        caption=f"{len(s.covers)} covers, total weight {rational_str(s.total_weight)}, "
+                f"Hurwitz number {rational_str(s.hurwitz_number)}: identity {verdict}",
+    )
+    for name, justify in [("#", "right"), ("over nodes", "left"), ("source", "left"),
+                          ("stable source", "left"), ("name", "left"), ("|Aut|", "right"),
+                          ("mult", "right"), ("weight", "right")]:
+        table.add_column(name, justify=justify, overflow="fold")
+    for i, c in enumerate(s.covers, start=1):
+        profiles = "; ".join(",".join(map(str, p)) for p in c.edge_profiles) or "-"
+        table.add_row(str(i), profiles, c.source.notation, c.stable_source.notation,
+                      c.stable_source_name or "", str(c.automorphisms), str(c.multiplicity),
+                      rational_str(c.weight))
+    return table
+
+
+def _landing_table(cat: Catalogue) -> Table:
+    table = Table(title="where the boundary lands: weight per stable source and base stratum")
+    for name in ("base", "stable source", "name", "weight"):
+        table.add_column(name, justify="right" if name == "weight" else "left", overflow="fold")
+    for s in cat.strata:
+        for graph, weight in s.by_source():
+            table.add_row(s.base.graph.notation, graph.notation, divisor_name(graph) or "", rational_str(weight))
+    return table
+
+
+def catalogue_table(cat: Catalogue) -> str:
+    """The table rendering: one table per stratum, then the landing summary."""
+    p = cat.problem
+    head = Table(title=f"admissible covers: genus {p.genus} over genus {p.target_genus}, degree {p.degree}, "
+                       f"profiles {' '.join('(' + str(m) + ')' for m in p.profiles)}; Hurwitz number "
+                       f"{rational_str(cat.hurwitz_number)}", show_header=False, box=None)
+    return table_text(head, *(_stratum_table(s) for s in cat.strata), _landing_table(cat))

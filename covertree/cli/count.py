@@ -8,26 +8,13 @@ import click
 from rich.console import Console
 from rich.table import Table
 
-from covertree.cli.params import PROFILE, emit, format_option, output_option
-from covertree.errors import InputError
+from covertree.cli.params import PROFILE, OneLineCommand, emit, format_option, output_option
 from covertree.export.counts import COUNT_COLUMNS, count_row, counts_csv, counts_json, counts_latex
 from covertree.hurwitz.numbers import hurwitz_numbers
 from covertree.hurwitz.problem import HurwitzProblem
 
 
-class _OneLineUsage(click.Command):
-    """Report a bad option value (malformed profile, non-integer, missing
-    option) as one line on stderr with exit status 2, like the library's input
-    errors, instead of click's usage block."""
-
-    def make_context(self, info_name, args, parent=None, **extra):
-        try:
-            return super().make_context(info_name, args, parent=parent, **extra)
-        except click.UsageError as error:
-            raise InputError(error.format_message()) from None
-
-
-@click.command("count", cls=_OneLineUsage)
+@click.command("count", cls=OneLineCommand)
 @click.option("--genus", "-g", "genus", type=int, default=None,
               help="Genus g of the connected source; missing branch points are simple "
                    "[default: the profiles are complete and g follows].")

@@ -8,7 +8,7 @@ import tempfile
 
 import click
 
-from covertree.errors import ProfileError
+from covertree.errors import InputError, ProfileError
 from covertree.symmetric.partitions import Partition
 
 _RANGE = re.compile(r"^\s*(-?\d+)\s*\.\.\s*(-?\d+)\s*$")
@@ -53,6 +53,18 @@ class IntRangeList(click.ParamType):
                     ctx,
                 )
         return sorted(out)
+
+
+class OneLineCommand(click.Command):
+    """Report a bad option value (malformed profile, non-integer, missing
+    option) as one line on stderr with exit status 2, like the library's input
+    errors, instead of click's usage block."""
+
+    def make_context(self, info_name, args, parent=None, **extra):
+        try:
+            return super().make_context(info_name, args, parent=parent, **extra)
+        except click.UsageError as error:
+            raise InputError(error.format_message()) from None
 
 
 PROFILE = ProfileType()
@@ -100,3 +112,31 @@ def emit(text: str, output: str | None) -> None:
         if os.path.exists(tmp):
             os.unlink(tmp)
         raise
+
+
+class AtomicOutput:
+    """Context manager giving a text stream: stdout, or a temporary file next to
+    ``output`` that replaces it only when the block succeeds (no partial file
+    is ever left behind)."""
+
+    def __init__(self, output: str | None) -> None:
+        self.output = output
+        self.tmp: str | None = None
+
+    def __enter__(self):
+        if self.output is None:
+            return click.get_text_stream("stdout")
+        directory = os.path.dirname(os.path.abspath(self.output))
+        fd, self.tmp = tempfile.mkstemp(dir=directory, prefix=".covertree-", suffix=".tmp")
+        self.handle = os.fdopen(fd, "w", encoding="utf-8")
+        return self.handle
+
+    def __exit__(self, kind, value, traceback) -> bool:
+        if self.tmp is None:
+            return False
+        self.handle.close()
+        if kind is None:
+            os.replace(self.tmp, self.output)
+        else:
+            os.unlink(self.tmp)
+        return False

@@ -9,12 +9,12 @@ from rich.console import Console
 from rich.table import Table
 from rich.text import Text
 
-from covertree.cli.params import emit, format_option, output_option
+from covertree.cli.params import OneLineCommand, emit, format_option, output_option
 from covertree.export.graphs import strata_csv, strata_json, strata_latex, strata_rows
 from covertree.graphs.enumerate import stable_graphs
 
 
-@click.command("strata")
+@click.command("strata", cls=OneLineCommand)
 @click.option(
     "--target-genus", "-t", "genus", type=int, required=True, help="Genus h of the target."
 )

@@ -39,12 +39,11 @@ Degree-2 covers of a sphere with three special points, types free:
 
 from __future__ import annotations
 
-from collections import Counter
 from collections.abc import Iterator, Sequence
 from dataclasses import dataclass, field
 from functools import cached_property
 
-from covertree.symmetric.permutations import Perm, commutator, compose, cycles, cycle_type, inverse
+from covertree.symmetric.permutations import Perm, commutator, compose, cycle_type, inverse
 
 #: Allowed cycle lengths at a special point: length -> maximal number of cycles,
 #: or ``None`` when the type is free (a half-edge).
@@ -116,10 +115,11 @@ def connected_pieces(degree: int, handles: int, allowed: Sequence[Allowance]) ->
 
     Notes
     -----
-    One special point (a free one if there is one) is solved from the
-    relation.  Without special points every generator is grown and the
-    relation is traced from every reached sheet as the partial permutations fill
-    in (as in coset enumeration).
+    If some special point is free, the first free one is solved from the
+    relation and the other generators are grown without constraint between
+    them.  Otherwise every generator is grown and the relation is traced from
+    the sheets touched by each new image, filling in the images it forces (as
+    in coset enumeration).
 
     Examples
     --------
@@ -139,19 +139,19 @@ def connected_pieces(degree: int, handles: int, allowed: Sequence[Allowance]) ->
     gen_allow = [None if g < 2 * handles else allowed[g - 2 * handles] for g in order]
     relator = _relator(handles, n, order) if solved is None else None
     out = []
-    for free in _normal_forms(degree, gen_allow, relator):
-        full = _complete(free, order, handles, n, solved, degree)
-        if full is None or not _fits(full, handles, allowed, solved):
-            continue
-        cent = _canonical_centraliser(free, degree)
-        if cent is not None:
-            out.append(Piece(degree, handles, full, cent))
+    for rows, cent in _canonical_forms(degree, gen_allow, relator):
+        full = _complete(rows, order, handles, n, solved, degree)
+        out.append(Piece(degree, handles, full, cent))
     return out
 
 
 def _relator(handles: int, n: int, order: list[int]) -> tuple[tuple[int, int], ...]:
     """The relation ``[a_1,b_1]...s_1...s_n`` as letters (position in the
-    generation order, +1 or -1), read left to right."""
+    generation order, +1 or -1), read left to right.
+
+    >>> _relator(1, 1, [2, 0, 1])
+    ((1, 1), (2, 1), (1, -1), (2, -1), (0, 1))
+    """
     where = {g: i for i, g in enumerate(order)}
     word: list[tuple[int, int]] = []
     for i in range(handles):
@@ -162,37 +162,46 @@ def _relator(handles: int, n: int, order: list[int]) -> tuple[tuple[int, int], .
 
 
 def _solved_index(allowed: Sequence[Allowance]) -> int | None:
-    """Index of the special point solved from the relation (a free one if any)."""
-    if not allowed:
-        return None
+    """Index of the special point solved from the relation: the first free one,
+    or ``None`` when every type is prescribed (then all generators are grown).
+
+    >>> _solved_index([{2: 1}, None, None]), _solved_index([{2: 1}])
+    (1, None)
+    """
     free = [p for p, a in enumerate(allowed) if a is None]
-    return free[0] if free else len(allowed) - 1
+    return free[0] if free else None
 
 
 def _generation_order(handles: int, allowed: Sequence[Allowance], solved: int | None) -> list[int]:
     """Generator indices (into the full tuple) in the order they are grown:
-    prescribed special points first (they prune best), then handles, then free."""
+    prescribed special points first (they prune best), then handles, then free.
+
+    >>> _generation_order(1, [None, {2: 1}], 0)
+    [3, 0, 1]
+    """
     special = [2 * handles + p for p in range(len(allowed)) if p != solved]
     prescribed = [g for g in special if allowed[g - 2 * handles] is not None]
     free = [g for g in special if allowed[g - 2 * handles] is None]
     return prescribed + list(range(2 * handles)) + free
 
 
-def _complete(free: tuple[Perm, ...], order: list[int], handles: int, n: int,
-              solved: int | None, k: int) -> tuple[Perm, ...] | None:
-    """Full tuple in standard order, solving ``s_solved`` from the relation;
-    ``None`` if there is no special point and the relation fails."""
+def _complete(rows: tuple[Perm, ...], order: list[int], handles: int, n: int,
+              solved: int | None, k: int) -> tuple[Perm, ...]:
+    """Full tuple in standard order, solving ``s_solved`` from the relation if
+    one special point was not grown.
+
+    >>> _complete(((1, 0),), [1], 0, 2, 0, 2)
+    ((1, 0), (1, 0))
+    """
     full: list[Perm | None] = [None] * (2 * handles + n)
-    for g, perm in zip(order, free):
+    for g, perm in zip(order, rows):
         full[g] = perm
+    if solved is None:
+        return tuple(full)
     prefix = tuple(range(k))
     for i in range(handles):
         prefix = compose(prefix, commutator(full[2 * i], full[2 * i + 1]))
     base = 2 * handles
-    if solved is None:
-        for p in range(n):
-            prefix = compose(prefix, full[base + p])
-        return tuple(full) if prefix == tuple(range(k)) else None
     for p in range(solved):
         prefix = compose(prefix, full[base + p])
     suffix = tuple(range(k))
@@ -202,102 +211,124 @@ def _complete(free: tuple[Perm, ...], order: list[int], handles: int, n: int,
     return tuple(full)
 
 
-def _fits(full: tuple[Perm, ...], handles: int, allowed: Sequence[Allowance], solved: int | None) -> bool:
-    """Whether the solved special point has an allowed type."""
-    if solved is None or allowed[solved] is None:
+class _Table:
+    """Partial permutations ``img``/``pre`` (``-1`` undefined) being grown, the
+    cycles closed so far at prescribed generators, and a trail for undoing.
+
+    ``words[g]`` lists the cyclic rotations of the relator that begin with the
+    letter ``g`` or ``g^-1``, as ``(sign, letters)`` with each letter given by
+    its forward and backward arrays, so that tracing needs no lookups.
+    """
+
+    __slots__ = ("img", "pre", "caps", "longest", "closed", "trail", "words")
+
+    def __init__(self, k: int, gen_allow: list[Allowance],
+                 relator: tuple[tuple[int, int], ...] | None) -> None:
+        r = len(gen_allow)
+        self.img = [[-1] * k for _ in range(r)]
+        self.pre = [[-1] * k for _ in range(r)]
+        self.caps = [None if a is None else [a.get(m, 0) for m in range(k + 1)] for a in gen_allow]
+        self.longest = [max(a, default=0) if a is not None else k for a in gen_allow]
+        self.closed = [[0] * (k + 1) for _ in range(r)]
+        self.trail: list[tuple[int, int, int]] = []
+        self.words = _rotations(relator, r, self.img, self.pre)
+
+    def define(self, g: int, x: int, y: int) -> bool:
+        """Set ``g: x -> y`` (both free) unless a prescribed type forbids it."""
+        row, back, cap = self.img[g], self.pre[g], self.caps[g]
+        length = 0
+        if cap is not None:
+            length = _closing_length(row, back, x, y)
+            if length > 0:
+                if self.closed[g][length] >= cap[length]:
+                    return False
+                self.closed[g][length] += 1
+            elif -length >= self.longest[g]:
+                return False
+            else:
+                length = 0
+        row[x], back[y] = y, x
+        self.trail.append((g, x, length))
         return True
-    counts = Counter(len(c) for c in cycles(full[2 * handles + solved]))
-    return all(allowed[solved].get(length, 0) >= m for length, m in counts.items())
 
+    def undo(self, mark: int) -> None:
+        """Forget every image set since the trail had length ``mark``."""
+        trail, img, pre, closed = self.trail, self.img, self.pre, self.closed
+        while len(trail) > mark:
+            g, x, length = trail.pop()
+            pre[g][img[g][x]] = -1
+            img[g][x] = -1
+            if length:
+                closed[g][length] -= 1
 
-def _normal_forms(k: int, gen_allow: list[Allowance],
-                  relator: tuple[tuple[int, int], ...] | None = None) -> Iterator[tuple[Perm, ...]]:
-    """Transitive tuples in breadth-first normal form from sheet 0, grown point by
-    point; prescribed cycle lengths prune as cycles close, and the ``relator``
-    (if given) prunes as soon as it fails to close from some sheet."""
-    r = len(gen_allow)
-    if r == 0:
-        if k == 1:
-            yield ()
-        return
-    img = [[-1] * k for _ in range(r)]
-    pre = [[-1] * k for _ in range(r)]
-    closed = [Counter() for _ in range(r)]
-    longest = [max(a) if a else k for a in gen_allow]
-    ctx = (k, r, img, pre, closed, gen_allow, longest, relator)
-    yield from _grow(0, 1, ctx)
+    def deduce(self, g: int, x: int) -> bool:
+        """Trace the relator through the new image ``g: x -> y`` and through
+        every image it forces; ``False`` on a contradiction."""
+        words, img = self.words, self.img
+        if words is None:
+            return True
+        todo = [(g, x)]
+        while todo:
+            g, x = todo.pop()
+            y = img[g][x]
+            for sign, word in words[g]:
+                if not self._scan(word, x if sign > 0 else y, todo):
+                    return False
+        return True
 
-
-def _grow(slot: int, reached: int, ctx: tuple) -> Iterator[tuple[Perm, ...]]:
-    k, r, img, pre, closed, gen_allow, longest, relator = ctx
-    if slot == k * r:
-        if reached == k:
-            yield tuple(tuple(row) for row in img)
-        return
-    i, g = divmod(slot, r)
-    if i >= reached:
-        return
-    row, back = img[g], pre[g]
-    for j in range(min(reached + 1, k)):
-        if back[j] != -1:
-            continue
-        length = _closing_length(row, back, i, j) if gen_allow[g] is not None else None
-        if length is not None:
-            if length > 0 and closed[g][length] >= gen_allow[g].get(length, 0):
-                continue
-            if length < 0 and -length > longest[g]:
-                continue
-        row[i], back[j] = j, i
-        if length is not None and length > 0:
-            closed[g][length] += 1
-        now = max(reached, j + 1)
-        if relator is None or _consistent(relator, img, pre, now):
-            yield from _grow(slot + 1, now, ctx)
-        if length is not None and length > 0:
-            closed[g][length] -= 1
-        row[i], back[j] = -1, -1
-
-
-def _consistent(relator: tuple[tuple[int, int], ...], img: list[list[int]],
-                pre: list[list[int]], reached: int) -> bool:
-    """Trace the relator forwards and backwards from every reached sheet through
-    the partial permutations; ``False`` if it provably cannot close."""
-    n = len(relator)
-    for p in range(reached):
-        x, m = p, 0
-        while m < n:
-            g, sign = relator[m]
-            y = img[g][x] if sign > 0 else pre[g][x]
-            if y == -1:
+    def _scan(self, word: tuple, p: int, todo: list[tuple[int, int]]) -> bool:
+        """Trace ``word`` (which must return) forwards and backwards from ``p``;
+        define the one missing image if only one is missing."""
+        x, m, size = p, 0, len(word)
+        while m < size:
+            y = word[m][0][x]
+            if y < 0:
                 break
             x, m = y, m + 1
-        if m == n:
-            if x != p:
-                return False
-            continue
-        y, top = p, n
-        while top > m + 1:
-            g, sign = relator[top - 1]
-            z = pre[g][y] if sign > 0 else img[g][y]
-            if z == -1:
+        else:
+            return x == p
+        y, top = p, size
+        while top > m:
+            z = word[top - 1][1][y]
+            if z < 0:
                 break
             y, top = z, top - 1
-        if top == m + 1 and not _can_map(relator[m], x, y, img, pre):
+        if top > m + 1:
+            return True
+        if top == m:
             return False
-    return True
+        fwd, back, g, sign = word[m]
+        if back[y] >= 0:
+            return False
+        if sign < 0:
+            x, y = y, x
+        if not self.define(g, x, y):
+            return False
+        todo.append((g, x))
+        return True
 
 
-def _can_map(letter: tuple[int, int], x: int, y: int, img: list[list[int]], pre: list[list[int]]) -> bool:
-    """Whether the (undefined) letter may still send ``x`` to ``y``."""
-    g, sign = letter
-    if sign < 0:
-        x, y = y, x
-    return img[g][x] == -1 and pre[g][y] == -1
+def _rotations(relator: tuple[tuple[int, int], ...] | None, r: int,
+               img: list[list[int]], pre: list[list[int]]) -> list[list[tuple]] | None:
+    """For each generator, the rotations of ``relator`` starting at one of its
+    letters, as ``(sign, ((forward, backward, g, sign), ...))``."""
+    if relator is None:
+        return None
+    letters = [(img[g], pre[g], g, s) if s > 0 else (pre[g], img[g], g, s) for g, s in relator]
+    words: list[list[tuple]] = [[] for _ in range(r)]
+    for m, (g, s) in enumerate(relator):
+        words[g].append((s, tuple(letters[m:] + letters[:m])))
+    return words
 
 
 def _closing_length(row: list[int], back: list[int], i: int, j: int) -> int:
     """Setting ``i -> j``: the length of the cycle it closes (positive), or minus
-    the length of the open chain it makes."""
+    the number of arrows in the open chain it makes (which then needs a cycle
+    longer than that).
+
+    >>> _closing_length([-1, 2, -1], [-1, -1, 1], 2, 1), _closing_length([-1] * 3, [-1] * 3, 0, 1)
+    (2, -1)
+    """
     length, t = 1, j
     while row[t] != -1:
         t = row[t]
@@ -311,29 +342,94 @@ def _closing_length(row: list[int], back: list[int], i: int, j: int) -> int:
     return -length
 
 
-def _relabel(tup: tuple[Perm, ...], k: int, start: int) -> tuple[tuple[Perm, ...], list[int]]:
-    """Breadth-first normal form of ``tup`` from ``start``; also the old point at
-    each new label."""
+def _canonical_forms(k: int, gen_allow: list[Allowance],
+                     relator: tuple[tuple[int, int], ...] | None = None
+                     ) -> Iterator[tuple[tuple[Perm, ...], tuple[Perm, ...]]]:
+    """Transitive tuples in breadth-first normal form from sheet 0 that are
+    least among the normal forms from all start sheets, with their centralisers.
+
+    Forms are compared in slot order (sheet-major: the images of sheet 0 under
+    each generator, then of sheet 1, ...), the order in which the search fills
+    them, so a partial tuple is cut as soon as some start sheet is provably
+    smaller (Sims).
+
+    >>> [rows for rows, cent in _canonical_forms(2, [None, None])]
+    [((0, 1), (1, 0)), ((1, 0), (0, 1)), ((1, 0), (1, 0))]
+    """
+    r = len(gen_allow)
+    if r == 0:
+        if k == 1:
+            yield (), ((0,),)
+        return
+    table = _Table(k, gen_allow, relator)
+    yield from _grow(0, 1, tuple(range(1, k)), table, k, r)
+
+
+def _grow(slot: int, reached: int, alive: tuple[int, ...], table: _Table,
+          k: int, r: int) -> Iterator[tuple[tuple[Perm, ...], tuple[Perm, ...]]]:
+    if slot == k * r:
+        if reached == k:
+            yield tuple(tuple(row) for row in table.img), _centraliser(table.img, alive, k, r)
+        return
+    i, g = divmod(slot, r)
+    if i >= reached:
+        return
+    img, pre = table.img, table.pre
+    if img[g][i] >= 0:
+        yield from _grow(slot + 1, reached, alive, table, k, r)
+        return
+    back, mark = pre[g], len(table.trail)
+    for j in range(min(reached + 1, k)):
+        if back[j] >= 0:
+            continue
+        if table.define(g, i, j) and table.deduce(g, i):
+            still = _still_least(img, alive, k, r)
+            if still is not None:
+                yield from _grow(slot + 1, max(reached, j + 1), still, table, k, r)
+        table.undo(mark)
+
+
+def _still_least(img: list[list[int]], alive: tuple[int, ...], k: int, r: int) -> tuple[int, ...] | None:
+    """``None`` if some start sheet in ``alive`` gives a smaller form; otherwise
+    the starts not yet known to give a larger one."""
+    still = []
+    for start in alive:
+        sign = _compare_from(img, start, k, r)[0]
+        if sign < 0:
+            return None
+        if sign == 0:
+            still.append(start)
+    return tuple(still)
+
+
+def _compare_from(img: list[list[int]], start: int, k: int, r: int) -> tuple[int, list[int]]:
+    """Compare, in slot order and as far as both are defined, the normal form
+    from ``start`` with the form from 0 (``img`` itself): -1 smaller, 1 larger,
+    0 equal so far; also the old sheet at each new label."""
     new = [-1] * k
     new[start] = 0
     old = [start]
-    for p in old:
-        for perm in tup:
-            q = perm[p]
-            if new[q] == -1:
-                new[q] = len(old)
+    for i in range(k):
+        if i >= len(old):
+            return 0, old
+        p = old[i]
+        for row in img:
+            q, c = row[p], row[i]
+            if q < 0 or c < 0:
+                return 0, old
+            v = new[q]
+            if v < 0:
+                v = new[q] = len(old)
                 old.append(q)
-    return tuple(tuple(new[perm[old[x]]] for x in range(k)) for perm in tup), old
+            if v != c:
+                return (-1 if v < c else 1), old
+    return 0, old
 
 
-def _canonical_centraliser(tup: tuple[Perm, ...], k: int) -> tuple[Perm, ...] | None:
-    """``None`` if another start sheet gives a smaller normal form; otherwise the
-    centraliser (maps sending 0 to a start with the same normal form)."""
+def _centraliser(img: list[list[int]], alive: tuple[int, ...], k: int, r: int) -> tuple[Perm, ...]:
+    """At a complete least form, the maps sending 0 to a start with the same
+    form (every start left in ``alive`` gives the same form)."""
     cent = [tuple(range(k))]
-    for start in range(1, k):
-        form, old = _relabel(tup, k, start)
-        if form < tup:
-            return None
-        if form == tup:
-            cent.append(tuple(old))
+    for start in alive:
+        cent.append(tuple(_compare_from(img, start, k, r)[1]))
     return tuple(cent)

@@ -34,7 +34,7 @@ from __future__ import annotations
 from collections.abc import Sequence
 from dataclasses import dataclass
 
-from covertree.errors import ProfileError
+from covertree.errors import GraphError, ProfileError
 from covertree.graphs.canonical import _certify
 from covertree.graphs.dual_graph import StableGraph
 from covertree.graphs.enumerate import stable_graphs
@@ -106,9 +106,7 @@ def base_strata(
         return [BaseStratum(g, 1) for g in graphs]
     orbits: dict[tuple, list] = {}
     for g in graphs:
-        coloured = tuple(tuple(classes[j - 1] for j in legs) for legs in g.legs)
-        colour_key = _certify(g.genera, g.edges, coloured)[0]
-        orbits.setdefault(colour_key, [g, 0])[1] += 1
+        orbits.setdefault(_colour_key(g, classes), [g, 0])[1] += 1
     return [BaseStratum(g, size) for g, size in orbits.values()]
 
 
@@ -121,3 +119,38 @@ def _profile_classes(profiles: Sequence[Sequence[int]]) -> list[int]:
         raise ProfileError(f"the profiles {listed} are not all of one degree")
     distinct = sorted(set(parts), reverse=True)
     return [distinct.index(mu) for mu in parts]
+
+
+def stratum_orbit(graph: StableGraph, profiles: Sequence[Sequence[int]]) -> BaseStratum:
+    """The given labelled stratum with the size of its orbit under permutations
+    of equal-profile legs.
+
+    Raises
+    ------
+    GraphError
+        If the legs of ``graph`` are not exactly ``1..len(profiles)``.
+
+    Examples
+    --------
+    >>> from covertree.graphs.notation import parse_graph
+    >>> stratum_orbit(parse_graph("g0{1,3}, g0{2,4} | 0-1"), [(2,), (2,), (1, 1), (1, 1)]).orbit_size
+    2
+    """
+    b = len(profiles)
+    labels = sorted(j for legs in graph.legs for j in legs)
+    if labels != list(range(1, b + 1)):
+        shown = ",".join(map(str, labels)) or "none"
+        raise GraphError(
+            f"stratum {graph.notation!r} has legs {shown}; the problem has {b} branch "
+            f"point(s), so the legs must be 1..{b}"
+        )
+    classes = _profile_classes(profiles)
+    target = _colour_key(graph, classes)
+    same = [g for g in stable_graphs(graph.genus, b, graph.codim) if g.codim == graph.codim]
+    return BaseStratum(graph, sum(1 for g in same if _colour_key(g, classes) == target))
+
+
+def _colour_key(g: StableGraph, classes: list[int]) -> tuple:
+    """Canonical key of ``g`` with each leg replaced by its profile class."""
+    coloured = tuple(tuple(classes[j - 1] for j in legs) for legs in g.legs)
+    return _certify(g.genera, g.edges, coloured)[0]

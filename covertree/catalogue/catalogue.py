@@ -1,0 +1,129 @@
+"""The catalogue: every admissible cover over each base stratum, with tallies
+and the degeneration identity.
+
+For every base stratum ``G`` the total weight ``sum_f mult(f)/|Aut f|`` of the
+covers over a fixed curve of type ``G`` must equal the connected Hurwitz number
+(THEORY.md section 3); :attr:`StratumResult.identity_holds` records the verdict.
+
+Examples
+--------
+Genus-2 double covers of an elliptic curve (two branch points), strata of
+codimension at most 1:
+
+>>> from covertree.hurwitz.problem import HurwitzProblem
+>>> cat = build_catalogue(HurwitzProblem.build(2, 1, genus=2), max_codim=1)
+>>> [(str(s.base.graph), len(s.covers), str(s.total_weight), s.identity_holds) for s in cat.strata]
+[('g1{1,2}', 4, '2', True), ('g0{1,2} | 0-0', 3, '2', True), ('g0{1,2}, g1 | 0-1', 4, '2', True)]
+"""
+
+from __future__ import annotations
+
+from collections.abc import Iterator
+from dataclasses import dataclass
+from fractions import Fraction
+
+from covertree.catalogue.covers import Cover, stratum_covers
+from covertree.errors import GraphError, LimitError
+from covertree.graphs.dual_graph import DualGraph, StableGraph
+from covertree.hurwitz.numbers import connected_hurwitz
+from covertree.hurwitz.problem import HurwitzProblem
+from covertree.strata.base import BaseStratum, base_strata, stratum_orbit
+
+#: Default bound on the number of covers listed in one run.
+DEFAULT_MAX_COVERS = 200_000
+
+
+@dataclass(frozen=True)
+class StratumResult:
+    """The covers over one base stratum (orbit) and their tallies."""
+
+    base: BaseStratum
+    covers: tuple[Cover, ...]
+    hurwitz_number: Fraction
+
+    @property
+    def total_weight(self) -> Fraction:
+        return sum((c.weight for c in self.covers), Fraction(0))
+
+    @property
+    def identity_holds(self) -> bool:
+        """The degeneration identity: total weight == Hurwitz number."""
+        return self.total_weight == self.hurwitz_number
+
+    def by_source(self) -> list[tuple[DualGraph, Fraction]]:
+        """Summed weight per stable source stratum, sorted canonically."""
+        tally: dict[DualGraph, Fraction] = {}
+        for c in self.covers:
+            tally[c.stable_source] = tally.get(c.stable_source, Fraction(0)) + c.weight
+        return sorted(tally.items(), key=lambda kv: (kv[0].codim, kv[0].key))
+
+
+@dataclass(frozen=True)
+class Catalogue:
+    """A Hurwitz problem, the codimension bound and one result per stratum."""
+
+    problem: HurwitzProblem
+    codim: int
+    hurwitz_number: Fraction
+    strata: tuple[StratumResult, ...]
+
+    @property
+    def failures(self) -> list[StratumResult]:
+        """Strata whose degeneration identity fails (each one a bug)."""
+        return [s for s in self.strata if not s.identity_holds]
+
+    @property
+    def n_covers(self) -> int:
+        return sum(len(s.covers) for s in self.strata)
+
+
+def select_strata(problem: HurwitzProblem, max_codim: int = 1, stratum: StableGraph | None = None,
+                  labeled: bool = False) -> list[BaseStratum]:
+    """The base strata of a run: all of codimension ``<= max_codim`` (grouped by
+    equal-profile relabelling unless ``labeled``), or the single ``stratum``."""
+    profiles = [tuple(p) for p in problem.profiles]
+    if stratum is None:
+        return base_strata(problem.target_genus, profiles, max_codim, labeled=labeled)
+    if not isinstance(stratum, StableGraph) or stratum.genus != problem.target_genus:
+        raise GraphError(
+            f"stratum {stratum.notation!r} is not a stable graph of genus "
+            f"{problem.target_genus} (the target genus)"
+        )
+    base = stratum_orbit(stratum, profiles)
+    return [BaseStratum(stratum, 1)] if labeled else [base]
+
+
+def iter_stratum(problem: HurwitzProblem, base: BaseStratum, budget: list[int]) -> Iterator[Cover]:
+    """Covers over one stratum, streamed; ``budget[0]`` counts down the covers
+    still allowed (:class:`LimitError` when exhausted)."""
+    for cover in stratum_covers(base.graph, problem.degree, [tuple(p) for p in problem.profiles]):
+        if budget[0] <= 0:
+            raise LimitError(
+                f"more covers than the limit over stratum {base.graph.notation}; "
+                "raise --max-covers or restrict --codim/--stratum"
+            )
+        budget[0] -= 1
+        yield cover
+
+
+def problem_hurwitz(problem: HurwitzProblem) -> Fraction:
+    """The connected Hurwitz number of the problem (section 5)."""
+    return connected_hurwitz(problem.degree, problem.target_genus, [tuple(p) for p in problem.profiles])
+
+
+def build_catalogue(problem: HurwitzProblem, max_codim: int = 1, stratum: StableGraph | None = None,
+                    labeled: bool = False, max_covers: int = DEFAULT_MAX_COVERS) -> Catalogue:
+    """List every cover over every selected base stratum.
+
+    Raises
+    ------
+    LimitError
+        When more than ``max_covers`` covers would be listed.
+    """
+    hurwitz = problem_hurwitz(problem)
+    budget = [max_covers]
+    results = []
+    for base in select_strata(problem, max_codim, stratum, labeled):
+        covers = sorted(iter_stratum(problem, base, budget), key=Cover.sort_key)
+        results.append(StratumResult(base, tuple(covers), hurwitz))
+    return Catalogue(problem, max_codim, hurwitz, tuple(results))

@@ -1,0 +1,110 @@
+"""Admissible covers as user-facing values: source, stable source, weight.
+
+Examples
+--------
+Genus-2 double covers of P^1 over the divisor where the six branch points
+split 3|3: one cover, two elliptic curves meeting in a point (``delta_1``),
+``|Aut| = 4`` (two independent involutions), multiplicity 2:
+
+>>> from covertree.graphs.notation import parse_graph
+>>> base = parse_graph("g0{1,2,3}, g0{4,5,6} | 0-1")
+>>> [c] = stratum_covers(base, 2, [(2,)] * 6)
+>>> c.source.notation, c.stable_source_name, c.automorphisms, c.multiplicity, c.weight
+('g1, g1 | 0-1', 'delta_1', 4, 2, Fraction(1, 2))
+"""
+
+from __future__ import annotations
+
+from collections.abc import Iterator, Sequence
+from dataclasses import dataclass, field
+from fractions import Fraction
+
+from covertree.errors import IdentityError
+from covertree.gluing.covers import GluedCover, glued_covers
+from covertree.graphs.dual_graph import DualGraph, StableGraph
+from covertree.hurwitz.problem import source_genus
+from covertree.stabilisation.stabilise import Stabilised, stabilise
+
+
+@dataclass(frozen=True)
+class Cover:
+    """One admissible cover over a fixed curve of a base stratum.
+
+    Attributes
+    ----------
+    edge_profiles : tuple of tuple of int
+        Profile over each base node, in the base's edge order.
+    source : DualGraph
+        Dual graph of the source curve (often unstable).
+    stable_source : DualGraph
+        Its stabilisation (a :class:`StableGraph` when the genus is >= 2).
+    automorphisms, multiplicity : int
+    raw : GluedCover
+        The glued monodromy data (pieces, ports, node indices).
+    stabilised : Stabilised
+        Stabilisation of ``raw``'s source, with the chain of source nodes
+        behind each stable node.
+    """
+
+    edge_profiles: tuple[tuple[int, ...], ...]
+    source: DualGraph
+    stable_source: DualGraph
+    automorphisms: int
+    multiplicity: int
+    raw: GluedCover = field(compare=False, repr=False)
+    stabilised: Stabilised = field(compare=False, repr=False)
+
+    @property
+    def weight(self) -> Fraction:
+        """``multiplicity / |Aut|`` (exact)."""
+        return Fraction(self.multiplicity, self.automorphisms)
+
+    @property
+    def stable_source_name(self) -> str | None:
+        """``delta_0`` / ``delta_i`` for a one-node stable source, else ``None``."""
+        return divisor_name(self.stable_source)
+
+    def sort_key(self) -> tuple:
+        """Deterministic order: profiles, stable source, source, then the code."""
+        return (self.edge_profiles, self.stable_source.key, self.source.key, self.raw.code)
+
+
+def divisor_name(graph: DualGraph) -> str | None:
+    """The usual name of a codimension-one stratum of ``Mbar_g``: ``delta_0``
+    (irreducible, one loop) or ``delta_i`` (separating, genus ``i <= g/2`` on one
+    side); ``None`` for other codimensions or graphs with legs.
+
+    >>> divisor_name(StableGraph([1, 2], [(0, 1)]))
+    'delta_1'
+    """
+    if graph.codim != 1 or graph.n_legs or graph.genus < 2:
+        return None
+    if graph.n_vertices == 1:
+        return "delta_0"
+    return f"delta_{min(graph.genera)}"
+
+
+def make_graph(genera: Sequence[int], edges: Sequence[tuple[int, int]]) -> DualGraph:
+    """A :class:`StableGraph` when stable, else a :class:`DualGraph`."""
+    graph = DualGraph(genera, edges)
+    return StableGraph(genera, edges) if graph.is_stable() else graph
+
+
+def to_cover(raw: GluedCover, genus: int) -> Cover:
+    """Build the user-facing cover, checking the source's arithmetic genus."""
+    source = make_graph(raw.source_genera, raw.source_edges)
+    if source.genus != genus:
+        raise IdentityError(
+            f"source {source.notation} has arithmetic genus {source.genus}, not {genus}"
+        )
+    stab = stabilise(raw.source_genera, raw.source_edges)
+    stable = make_graph(stab.genera, stab.edges)
+    return Cover(raw.edge_profiles, source, stable, raw.automorphisms, raw.multiplicity, raw, stab)
+
+
+def stratum_covers(base: DualGraph, degree: int, profiles: Sequence[Sequence[int]]) -> Iterator[Cover]:
+    """Every admissible cover over a fixed curve of type ``base``, streamed in
+    the engine's deterministic order."""
+    genus = source_genus(degree, base.genus, [tuple(p) for p in profiles])
+    for raw in glued_covers(base, degree, profiles):
+        yield to_cover(raw, genus)

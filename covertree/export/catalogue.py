@@ -1,0 +1,190 @@
+r"""JSON, JSON-lines, CSV and LaTeX renderings of a catalogue of covers.
+
+The JSON document is a contract (keys are only ever added)::
+
+    {"problem": {"genus", "target_genus", "degree", "profiles", "codim"},
+     "hurwitz_number": "p/q",
+     "strata": [{"base": GRAPH, "codim": k, "orbit_size": n, "covers": [COVER, ...],
+                 "total_weight": "p/q", "by_source": [{"stable_source": GRAPH, "weight": "p/q"}, ...],
+                 "hurwitz_number": "p/q", "identity": true, "n_covers": m}, ...]}
+
+    COVER = {"edge_profiles": [[int, ...], ...], "source": GRAPH, "stable_source": GRAPH,
+             "automorphisms": int, "multiplicity": int, "weight": "p/q",
+             "stable_codim": int, "stable_name": "delta_1" | null}
+
+``GRAPH`` is :meth:`covertree.graphs.dual_graph.DualGraph.to_dict`; base legs
+are the branch points ``1..b`` in the order of ``profiles``; ``edge_profiles``
+follow the base's ``edges`` order.  Exact rationals are strings ``"p/q"``.
+
+Examples
+--------
+>>> from covertree.hurwitz.problem import HurwitzProblem
+>>> from covertree.catalogue.catalogue import build_catalogue
+>>> cat = build_catalogue(HurwitzProblem.build(2, 0, genus=2), max_codim=1)
+>>> doc = catalogue_to_dict(cat)
+>>> doc["hurwitz_number"], [s["total_weight"] for s in doc["strata"]]
+('1/2', ['1/2', '1/2', '1/2'])
+>>> print(catalogue_to_csv(cat).splitlines()[0])
+base,base_codim,orbit_size,edge_profiles,source,stable_source,stable_codim,stable_name,automorphisms,multiplicity,weight
+"""
+
+from __future__ import annotations
+
+import csv
+import io
+import json
+
+from covertree.catalogue.catalogue import Catalogue, StratumResult
+from covertree.catalogue.covers import Cover
+from covertree.export.graphs import latex_escape
+from covertree.export.rational import latex_rational, rational_str
+
+#: Column names of the CSV rendering (stable: scripts rely on them).
+COVER_COLUMNS = (
+    "base", "base_codim", "orbit_size", "edge_profiles", "source", "stable_source",
+    "stable_codim", "stable_name", "automorphisms", "multiplicity", "weight",
+)
+
+
+def cover_to_dict(cover: Cover) -> dict:
+    """The ``COVER`` object of the JSON shape."""
+    return {
+        "edge_profiles": [list(p) for p in cover.edge_profiles],
+        "source": cover.source.to_dict(),
+        "stable_source": cover.stable_source.to_dict(),
+        "automorphisms": cover.automorphisms,
+        "multiplicity": cover.multiplicity,
+        "weight": rational_str(cover.weight),
+        "stable_codim": cover.stable_source.codim,
+        "stable_name": cover.stable_source_name,
+    }
+
+
+def stratum_to_dict(result: StratumResult) -> dict:
+    """One entry of ``"strata"``."""
+    return {
+        "base": result.base.graph.to_dict(),
+        "codim": result.base.graph.codim,
+        "orbit_size": result.base.orbit_size,
+        "covers": [cover_to_dict(c) for c in result.covers],
+        "total_weight": rational_str(result.total_weight),
+        "by_source": [
+            {"stable_source": g.to_dict(), "weight": rational_str(w)} for g, w in result.by_source()
+        ],
+        "hurwitz_number": rational_str(result.hurwitz_number),
+        "identity": result.identity_holds,
+        "n_covers": len(result.covers),
+    }
+
+
+def problem_to_dict(problem, codim: int) -> dict:
+    """The ``"problem"`` object."""
+    return {**problem.to_dict(), "codim": codim}
+
+
+def catalogue_to_dict(cat: Catalogue) -> dict:
+    """The whole JSON document as a dict (``to_json`` without the encoding)."""
+    return {
+        "problem": problem_to_dict(cat.problem, cat.codim),
+        "hurwitz_number": rational_str(cat.hurwitz_number),
+        "strata": [stratum_to_dict(s) for s in cat.strata],
+    }
+
+
+def catalogue_to_json(cat: Catalogue) -> str:
+    """The JSON document (indented, keys in a fixed order)."""
+    return json.dumps(catalogue_to_dict(cat), indent=1)
+
+
+def cover_to_jsonl(base, cover: Cover) -> str:
+    """One JSON line: the ``COVER`` keys plus ``"base"`` (GRAPH) and
+    ``"orbit_size"``."""
+    record = {"base": base.graph.to_dict(), "orbit_size": base.orbit_size, **cover_to_dict(cover)}
+    return json.dumps(record, separators=(",", ":"))
+
+
+def _profiles_text(cover: Cover) -> str:
+    return ";".join(",".join(map(str, p)) for p in cover.edge_profiles)
+
+
+def cover_row(base, cover: Cover) -> tuple:
+    """The CSV row of one cover, in :data:`COVER_COLUMNS` order."""
+    return (
+        base.graph.notation, base.graph.codim, base.orbit_size, _profiles_text(cover),
+        cover.source.notation, cover.stable_source.notation, cover.stable_source.codim,
+        cover.stable_source_name or "", cover.automorphisms, cover.multiplicity,
+        rational_str(cover.weight),
+    )
+
+
+def catalogue_to_csv(cat: Catalogue) -> str:
+    """One row per cover, with a header row."""
+    buffer = io.StringIO()
+    writer = csv.writer(buffer, lineterminator="\n")
+    writer.writerow(COVER_COLUMNS)
+    for s in cat.strata:
+        for c in s.covers:
+            writer.writerow(cover_row(s.base, c))
+    return buffer.getvalue()
+
+
+def _math(notation: str) -> str:
+    r"""Our graph notation in math mode: ``g0{1,2}`` -> ``g_0\{1,2\}``."""
+    body = latex_escape(notation).replace("|", r"\mid ")
+    out, i = [], 0
+    while i < len(body):
+        if body[i] == "g" and i + 1 < len(body) and body[i + 1].isdigit():
+            j = i + 1
+            while j < len(body) and body[j].isdigit():
+                j += 1
+            out.append(f"g_{{{body[i + 1:j]}}}")
+            i = j
+        else:
+            out.append(body[i])
+            i += 1
+    return "$" + "".join(out).replace("^", r"\^{}") + "$"
+
+
+def catalogue_to_latex(cat: Catalogue, standalone: bool = False) -> str:
+    """A booktabs ``longtable`` (one block per stratum), or a complete document."""
+    lines = [
+        r"\begin{longtable}{llllrrl}",
+        r"\toprule",
+        r"profiles & source & stable source & name & $|\mathrm{Aut}|$ & mult & weight \\",
+        r"\midrule",
+        r"\endhead",
+    ]
+    for s in cat.strata:
+        head = (f"\\multicolumn{{7}}{{l}}{{base {_math(s.base.graph.notation)}, codim "
+                f"{s.base.graph.codim}, orbit {s.base.orbit_size}: total "
+                f"${latex_rational(s.total_weight)}$ vs.\\ $H = {latex_rational(s.hurwitz_number)}$"
+                f" ({'holds' if s.identity_holds else 'FAILS'})}} \\\\")
+        lines += [head, r"\midrule"]
+        for c in s.covers:
+            lines.append(" & ".join([
+                "$" + ";".join(",".join(map(str, p)) for p in c.edge_profiles) + "$" if c.edge_profiles else "--",
+                _math(c.source.notation), _math(c.stable_source.notation),
+                f"$\\{c.stable_source_name.replace('_', '_{')}}}$" if c.stable_source_name else "",
+                str(c.automorphisms), str(c.multiplicity), f"${latex_rational(c.weight)}$",
+            ]) + r" \\")
+        lines.append(r"\midrule")
+    lines[-1] = r"\bottomrule"
+    lines.append(r"\end{longtable}")
+    body = "\n".join(lines)
+    return _document(body, cat) if standalone else body
+
+
+def _document(body: str, cat: Catalogue) -> str:
+    p = cat.problem
+    title = (f"Admissible covers of degree {p.degree}, genus {p.genus} over genus "
+             f"{p.target_genus}, codimension $\\le {cat.codim}$")
+    return "\n".join([
+        r"\documentclass{article}",
+        r"\usepackage[margin=2cm,landscape]{geometry}",
+        r"\usepackage{booktabs,longtable,amsmath}",
+        r"\begin{document}",
+        r"\section*{" + title + "}",
+        body,
+        r"\end{document}",
+        "",
+    ])

@@ -1,0 +1,1 @@
+"""Stabilisation: contract the unstable components of a source curve."""
