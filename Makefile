@@ -15,7 +15,7 @@ $(STAMP): $(BIN)/python pyproject.toml
 
 demo: $(STAMP)
 	$(BIN)/covertree count --genus 3 --target-genus 1 --degree 2
-	$(BIN)/covertree strata --target-genus 1 --points 4 --codim 1
+	$(BIN)/covertree catalogue --genus 3 --target-genus 1 --degree 2 --codim 1
 
 test: $(STAMP)
 	$(BIN)/python -m pytest -q
