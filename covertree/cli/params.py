@@ -107,7 +107,7 @@ def emit(text: str, output: str | None) -> None:
     try:
         with os.fdopen(fd, "w", encoding="utf-8") as handle:
             handle.write(text)
-        os.replace(tmp, output)
+        _publish(tmp, output)
     except BaseException:
         if os.path.exists(tmp):
             os.unlink(tmp)
@@ -136,7 +136,16 @@ class AtomicOutput:
             return False
         self.handle.close()
         if kind is None:
-            os.replace(self.tmp, self.output)
+            _publish(self.tmp, self.output)
         else:
             os.unlink(self.tmp)
         return False
+
+
+def _publish(tmp: str, output: str) -> None:
+    """Give the finished temporary file the usual permissions and move it into
+    place in one step."""
+    mask = os.umask(0)
+    os.umask(mask)
+    os.chmod(tmp, 0o666 & ~mask)
+    os.replace(tmp, output)
