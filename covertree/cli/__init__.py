@@ -43,9 +43,9 @@ def main() -> None:
 
 
 def _register() -> None:
-    from covertree.cli import catalogue, count, strata
+    from covertree.cli import catalogue, count, draw, pullback, strata
 
-    for module in (count, strata, catalogue):
+    for module in (count, strata, catalogue, pullback, draw):
         main.add_command(module.command)
 
 

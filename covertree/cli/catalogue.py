@@ -13,6 +13,7 @@ from covertree.catalogue.catalogue import (
 )
 from covertree.cli.params import PROFILE, AtomicOutput, OneLineCommand, emit, format_option, output_option
 from covertree.catalogue.covers import divisor_name
+from covertree.catalogue.local_structure import local_structure
 from covertree.cli.render import each_with_progress, table_text
 from covertree.export.catalogue import catalogue_to_csv, catalogue_to_json, catalogue_to_latex, cover_to_jsonl
 from covertree.export.rational import rational_str
@@ -43,8 +44,8 @@ def problem_options(func):
 @click.option("--labeled", "-l", is_flag=True, help="List every labelled stratum, not one per orbit.")
 @click.option("--max-covers", "-m", "max_covers", type=click.IntRange(min=1), default=DEFAULT_MAX_COVERS,
               show_default=True, help="Stop with an error rather than list more covers than this.")
-@click.option("--standalone", is_flag=True, help="LaTeX: a complete document.")
-@format_option(["table", "json", "jsonl", "csv", "latex"])
+@click.option("--standalone", is_flag=True, help="LaTeX, TikZ: a complete document.")
+@format_option(["table", "json", "jsonl", "csv", "latex", "tikz"])
 @output_option
 def command(genus, target_genus, degree, profiles, codim, stratum, labeled, max_covers, standalone, fmt, output):
     """List every admissible cover over a fixed curve of each boundary stratum of
@@ -68,6 +69,10 @@ def _render(cat: Catalogue, fmt: str, standalone: bool) -> str:
         return catalogue_to_csv(cat)
     if fmt == "latex":
         return catalogue_to_latex(cat, standalone)
+    if fmt == "tikz":
+        from covertree.export.tikz import catalogue_tikz
+
+        return catalogue_tikz(cat, standalone)
     return catalogue_table(cat)
 
 
@@ -108,14 +113,25 @@ def _stratum_table(s: StratumResult) -> Table:
     )
     for name, justify in [("#", "right"), ("over nodes", "left"), ("source", "left"),
                           ("stable source", "left"), ("name", "left"), ("|Aut|", "right"),
-                          ("mult", "right"), ("weight", "right")]:
+                          ("mult", "right"), ("weight", "right"), ("L", "right"), ("br", "right"),
+                          ("orders", "left")]:
         table.add_column(name, justify=justify, overflow="fold")
     for i, c in enumerate(s.covers, start=1):
         profiles = "; ".join(",".join(map(str, p)) for p in c.edge_profiles) or "-"
         table.add_row(str(i), profiles, c.source.notation, c.stable_source.notation,
                       c.stable_source_name or "", str(c.automorphisms), str(c.multiplicity),
-                      rational_str(c.weight))
+                      rational_str(c.weight), *_local_cells(c))
     return table
+
+
+def _local_cells(cover) -> tuple[str, str, str]:
+    """L per base node, branches, and per stable node ``order type`` (codim one)."""
+    local = local_structure(cover)
+    lcms = ";".join(str(n.lcm) for n in local.nodes) or "-"
+    if local.stable_nodes is None:
+        return lcms, str(local.branches), ""
+    orders = ", ".join(f"{n.order} {n.type}" if n.type else str(n.order) for n in local.stable_nodes)
+    return lcms, str(local.branches), orders or "-"
 
 
 def _landing_table(cat: Catalogue) -> Table:

@@ -29,9 +29,10 @@ from covertree.graphs.enumerate import stable_graphs
     default=None,
     help="Largest codimension listed  [default: 3h-3+n, all strata].",
 )
-@format_option(["table", "json", "csv", "latex"])
+@click.option("--standalone", is_flag=True, help="TikZ: a complete document.")
+@format_option(["table", "json", "csv", "latex", "tikz"])
 @output_option
-def command(genus: int, points: int, codim: int | None, fmt: str, output: str | None) -> None:
+def command(genus: int, points: int, codim: int | None, standalone: bool, fmt: str, output: str | None) -> None:
     """List the stable graphs of type (h, n): every boundary stratum of
     Mbar_{h,n} with codimension at most K, once up to isomorphism fixing the
     legs 1..n, with its automorphism count; ordered by codimension, then
@@ -47,6 +48,10 @@ def command(genus: int, points: int, codim: int | None, fmt: str, output: str | 
         text = strata_csv(graphs)
     elif fmt == "latex":
         text = strata_latex(graphs)
+    elif fmt == "tikz":
+        from covertree.export.tikz import strata_tikz
+
+        text = strata_tikz(graphs, standalone, f"Strata of $\\overline{{M}}_{{{genus},{points}}}$")
     else:
         text = _table(genus, points, codim, graphs)
     emit(text, output)

@@ -10,7 +10,31 @@ The JSON document is a contract (keys are only ever added)::
 
     COVER = {"edge_profiles": [[int, ...], ...], "source": GRAPH, "stable_source": GRAPH,
              "automorphisms": int, "multiplicity": int, "weight": "p/q",
-             "stable_codim": int, "stable_name": "delta_1" | null}
+             "stable_codim": int, "stable_name": "delta_1" | null,
+             "local_structure": LOCAL}
+
+    LOCAL = {"nodes": [{"edge": k, "indices": [e_1, ...], "lcm": L, "branches": b}, ...],
+             "branches": B, "source_edge_indices": [e, ...],
+             "stable_nodes": [{"edge": k, "ends": [i, j], "order": o, "type": "delta_i" | null}, ...] | null}
+
+``LOCAL`` is the local structure of the space of admissible covers at the
+cover (:mod:`covertree.catalogue.local_structure`): it is locally
+``C[[t, s_1..s_k]]/(s_i^{e_i} - t)`` over each base node; ``nodes`` has one
+entry per base node (``edge`` indexes the base's ``edges``) with the indices
+``e_i`` of the source nodes above it, ``L = lcm(e_i)`` and the number
+``prod(e_i)/L`` of branches of the normalisation there; ``branches`` is their
+product over the base nodes; ``source_edge_indices`` is the ramification index
+of each edge of ``source``, in its order.  ``stable_nodes`` is given on
+codimension-one base strata only (``null`` otherwise): per edge of
+``stable_source`` (``edge`` indexes its ``edges``), the order ``o`` to which
+the node is smoothed along a branch (the sum of ``L/e`` over the source nodes
+stabilisation merged into it) and its type (``delta_0`` non-separating,
+``delta_i`` separating with genus ``i <= G/2`` on one side; ``null`` for
+``G < 2``).  The CSV adds the columns ``node_indices`` (per base node the
+``e_i`` joined by ``,``, nodes joined by ``;``), ``node_lcms``,
+``node_branches``, ``branches``, ``stable_node_orders`` and
+``stable_node_types`` (per stable node, joined by ``;``; empty off
+codimension one).
 
 ``GRAPH`` is :meth:`covertree.graphs.dual_graph.DualGraph.to_dict`; base legs
 are the branch points ``1..b`` in the order of ``profiles``; ``edge_profiles``
@@ -25,7 +49,7 @@ Examples
 >>> doc["hurwitz_number"], [s["total_weight"] for s in doc["strata"]]
 ('1/2', ['1/2', '1/2', '1/2'])
 >>> print(catalogue_to_csv(cat).splitlines()[0])
-base,base_codim,orbit_size,edge_profiles,source,stable_source,stable_codim,stable_name,automorphisms,multiplicity,weight
+base,base_codim,orbit_size,edge_profiles,source,stable_source,stable_codim,stable_name,automorphisms,multiplicity,weight,node_indices,node_lcms,node_branches,branches,stable_node_orders,stable_node_types
 """
 
 from __future__ import annotations
@@ -36,6 +60,7 @@ import json
 
 from covertree.catalogue.catalogue import Catalogue, StratumResult
 from covertree.catalogue.covers import Cover
+from covertree.catalogue.local_structure import LocalStructure, local_structure
 from covertree.export.graphs import latex_escape
 from covertree.export.rational import latex_rational, rational_str
 
@@ -43,7 +68,36 @@ from covertree.export.rational import latex_rational, rational_str
 COVER_COLUMNS = (
     "base", "base_codim", "orbit_size", "edge_profiles", "source", "stable_source",
     "stable_codim", "stable_name", "automorphisms", "multiplicity", "weight",
+    "node_indices", "node_lcms", "node_branches", "branches", "stable_node_orders", "stable_node_types",
 )
+
+
+def local_to_dict(local: LocalStructure) -> dict:
+    """The ``LOCAL`` object of the JSON shape."""
+    stable = None
+    if local.stable_nodes is not None:
+        stable = [{"edge": n.edge, "ends": list(n.ends), "order": n.order, "type": n.type}
+                  for n in local.stable_nodes]
+    return {
+        "nodes": [{"edge": n.edge, "indices": list(n.indices), "lcm": n.lcm, "branches": n.branches}
+                  for n in local.nodes],
+        "branches": local.branches,
+        "source_edge_indices": list(local.source_indices),
+        "stable_nodes": stable,
+    }
+
+
+def local_cells(local: LocalStructure) -> tuple[str, str, str, int, str, str]:
+    """The local-structure cells of a CSV row (see the module docstring)."""
+    stable = local.stable_nodes or ()
+    return (
+        ";".join(",".join(map(str, n.indices)) for n in local.nodes),
+        ";".join(str(n.lcm) for n in local.nodes),
+        ";".join(str(n.branches) for n in local.nodes),
+        local.branches,
+        ";".join(str(n.order) for n in stable),
+        ";".join(n.type or "" for n in stable),
+    )
 
 
 def cover_to_dict(cover: Cover) -> dict:
@@ -57,6 +111,7 @@ def cover_to_dict(cover: Cover) -> dict:
         "weight": rational_str(cover.weight),
         "stable_codim": cover.stable_source.codim,
         "stable_name": cover.stable_source_name,
+        "local_structure": local_to_dict(local_structure(cover)),
     }
 
 
@@ -113,7 +168,7 @@ def cover_row(base, cover: Cover) -> tuple:
         base.graph.notation, base.graph.codim, base.orbit_size, _profiles_text(cover),
         cover.source.notation, cover.stable_source.notation, cover.stable_source.codim,
         cover.stable_source_name or "", cover.automorphisms, cover.multiplicity,
-        rational_str(cover.weight),
+        rational_str(cover.weight), *local_cells(local_structure(cover)),
     )
 
 
@@ -130,7 +185,7 @@ def catalogue_to_csv(cat: Catalogue) -> str:
 
 def _math(notation: str) -> str:
     r"""Our graph notation in math mode: ``g0{1,2}`` -> ``g_0\{1,2\}``."""
-    body = latex_escape(notation).replace("|", r"\mid ")
+    body = latex_escape(notation).replace(r"\^{}", "^").replace("|", r"\mid ")
     out, i = [], 0
     while i < len(body):
         if body[i] == "g" and i + 1 < len(body) and body[i + 1].isdigit():
@@ -142,20 +197,20 @@ def _math(notation: str) -> str:
         else:
             out.append(body[i])
             i += 1
-    return "$" + "".join(out).replace("^", r"\^{}") + "$"
+    return "$" + "".join(out) + "$"
 
 
 def catalogue_to_latex(cat: Catalogue, standalone: bool = False) -> str:
     """A booktabs ``longtable`` (one block per stratum), or a complete document."""
     lines = [
-        r"\begin{longtable}{llllrrl}",
+        r"\begin{longtable}{llllrrlrrl}",
         r"\toprule",
-        r"profiles & source & stable source & name & $|\mathrm{Aut}|$ & mult & weight \\",
+        r"profiles & source & stable source & name & $|\mathrm{Aut}|$ & mult & weight & $L$ & br & orders \\",
         r"\midrule",
         r"\endhead",
     ]
     for s in cat.strata:
-        head = (f"\\multicolumn{{7}}{{l}}{{base {_math(s.base.graph.notation)}, codim "
+        head = (f"\\multicolumn{{10}}{{l}}{{base {_math(s.base.graph.notation)}, codim "
                 f"{s.base.graph.codim}, orbit {s.base.orbit_size}: total "
                 f"${latex_rational(s.total_weight)}$ vs.\\ $H = {latex_rational(s.hurwitz_number)}$"
                 f" ({'holds' if s.identity_holds else 'FAILS'})}} \\\\")
@@ -166,12 +221,28 @@ def catalogue_to_latex(cat: Catalogue, standalone: bool = False) -> str:
                 _math(c.source.notation), _math(c.stable_source.notation),
                 f"$\\{c.stable_source_name.replace('_', '_{')}}}$" if c.stable_source_name else "",
                 str(c.automorphisms), str(c.multiplicity), f"${latex_rational(c.weight)}$",
+                *_latex_local(local_structure(c)),
             ]) + r" \\")
         lines.append(r"\midrule")
     lines[-1] = r"\bottomrule"
     lines.append(r"\end{longtable}")
     body = "\n".join(lines)
     return _document(body, cat) if standalone else body
+
+
+def _latex_local(local: LocalStructure) -> list[str]:
+    r"""Cells ``L`` (per base node), branches, and the stable nodes' orders with
+    their types (``2\,\delta_0``), codimension one only."""
+    lcms = ";".join(str(n.lcm) for n in local.nodes) or "--"
+    if local.stable_nodes is None:
+        orders = ""
+    else:
+        orders = ", ".join(
+            f"{n.order}" + (f"\\,\\delta_{{{n.type.split('_', 1)[1]}}}" if n.type else "")
+            for n in local.stable_nodes
+        )
+        orders = f"${orders}$" if orders else "--"
+    return [lcms, str(local.branches), orders]
 
 
 def _document(body: str, cat: Catalogue) -> str:
