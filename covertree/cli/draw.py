@@ -44,7 +44,7 @@ def command(notation, cover_file, line, output):
     base_labels = [",".join(map(str, p)) for p in profiles]
     degree = sum(profiles[0]) if profiles else None
     title = f"{source.notation}  ->  {base.notation}"
-    draw_pair(source, source_labels, base, base_labels, degree if degree is not None else "", output, title)
+    draw_pair(source, source_labels, base, base_labels, degree, output, title)
 
 
 def _graph(data) -> DualGraph:

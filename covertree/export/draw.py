@@ -140,10 +140,10 @@ def draw_graph(graph, path: str, labels: Sequence[str] | None = None, title: str
     _finish(fig, ax, box, graph.notation if title is None else title, path, plt)
 
 
-def draw_pair(source, source_labels: Sequence[str], base, base_labels: Sequence[str], degree: int,
+def draw_pair(source, source_labels: Sequence[str], base, base_labels: Sequence[str], degree: int | None,
               path: str, title: str | None = None) -> None:
     """Write an image of a cover: ``source`` (edges labelled by ramification
-    indices), an arrow marked with the degree, and ``base`` (edges labelled by
+    indices), an arrow marked with the degree (unless ``None``), and ``base`` (edges labelled by
     profiles, legs by branch points)."""
     _suffix(path)
     tools = _pyplot()
@@ -155,6 +155,8 @@ def draw_pair(source, source_labels: Sequence[str], base, base_labels: Sequence[
     shift = sx1 + GAP - base_left
     bx0, bx1, by0, by1 = _panel(ax, base, base_labels, shift, tools)
     start, end = sx1 + 0.25, sx1 + GAP - 0.25
-    ax.add_patch(FancyArrowPatch((start, 0), (end, 0), arrowstyle="-|>", mutation_scale=14, linewidth=1.4))
-    ax.text((start + end) / 2, 0.25, f"×{degree}", ha="center", va="bottom", fontsize=9)
+    ax.add_patch(FancyArrowPatch((start, 0), (end, 0), arrowstyle="-|>", mutation_scale=14, linewidth=1.4,
+                                 color="black"))
+    if degree is not None:
+        ax.text((start + end) / 2, 0.25, f"×{degree}", ha="center", va="bottom", fontsize=9)
     _finish(fig, ax, (sx0, bx1, min(sy0, by0), max(sy1, by1)), title, path, plt)

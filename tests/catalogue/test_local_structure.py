@@ -1,0 +1,99 @@
+"""Local structure of the cover space: branch counts against brute force,
+stable-node orders against the chains of stabilisation."""
+
+import itertools
+from math import lcm, prod
+
+from hypothesis import given, settings, strategies as st
+
+from covertree.catalogue.covers import stratum_covers
+from covertree.catalogue.local_structure import branch_count, local_structure, node_type
+from covertree.graphs.notation import parse_graph
+from covertree.hurwitz.problem import HurwitzProblem
+from covertree.strata.base import base_strata
+
+
+def brute_branches(indices):
+    """Branches of C[[t, s]]/(s_i^{e_i} - t) at 0, counted independently: over
+    a fixed t != 0 the solutions (s_1..s_k) form a torsor under
+    mu_{e_1} x ... x mu_{e_k} = Z/e_1 x ... x Z/e_k; the loop around t = 0 acts
+    by the diagonal element (1, ..., 1) (each s_i = t^{1/e_i} turns by
+    zeta_{e_i}), so the branches of the normalisation are the orbits of the
+    cyclic group it generates."""
+    seen, orbits = set(), 0
+    for point in itertools.product(*(range(e) for e in indices)):
+        if point in seen:
+            continue
+        orbits += 1
+        x = point
+        while x not in seen:
+            seen.add(x)
+            x = tuple((xi + 1) % e for xi, e in zip(x, indices))
+    return orbits
+
+
+@settings(max_examples=60, deadline=None)
+@given(st.lists(st.integers(1, 6), min_size=1, max_size=4))
+def test_branch_count_is_the_number_of_orbits(indices):
+    assert branch_count(indices) == brute_branches(indices) == prod(indices) // lcm(*indices)
+
+
+def test_branch_count_examples():
+    # common knowledge: x^2 = y^2 (e = 2, 2) has two branches; (2, 3) gives a cusp-like single branch
+    assert brute_branches((2, 2)) == 2 and brute_branches((2, 3)) == 1 and brute_branches((4, 2, 2)) == 4
+
+
+def test_node_types():
+    # delta_i: separating node with genus i on the smaller side; loops and cycle edges are delta_0
+    assert node_type([1, 2], [(0, 1)], 0) == "delta_1"
+    assert node_type([0, 3], [(0, 0), (0, 1)], 1) == "delta_1"
+    assert node_type([0, 3], [(0, 0), (0, 1)], 0) == "delta_0"
+    assert node_type([1, 1, 1], [(0, 1), (1, 2)], 0) == "delta_1"
+    assert node_type([0, 1], [(0, 1)] * 2, 0) == "delta_0"
+    assert node_type([1], [(0, 0)], 0) == "delta_0"  # genus 1 + 1 = 2
+    assert node_type([0], [(0, 0)], 0) is None  # genus 1: no Mbar_1
+
+def _problems():
+    return [(2, 0, 2), (3, 0, 2), (2, 1, 2), (3, 1, 2), (2, 1, 3)]
+
+
+def test_structure_of_every_cover_matches_its_data():
+    for d, h, g in _problems():
+        p = HurwitzProblem.build(d, h, genus=g)
+        for base in base_strata(h, [tuple(m) for m in p.profiles], 2):
+            for c in stratum_covers(base.graph, d, [tuple(m) for m in p.profiles]):
+                s = local_structure(c)
+                # per base node: the indices are the profile over it, multiplicity = prod e
+                assert tuple(n.indices for n in s.nodes) == c.edge_profiles
+                assert prod(prod(n.indices) for n in s.nodes) == c.multiplicity
+                assert s.branches == prod(n.branches for n in s.nodes)
+                assert sorted(s.source_indices) == sorted(c.raw.source_edge_index)
+                if base.codim != 1:
+                    assert s.stable_nodes is None
+                    continue
+                assert len(s.stable_nodes) == c.stable_source.n_edges
+                assert [n.ends for n in s.stable_nodes] == [tuple(e) for e in c.stable_source.edges]
+                big_l = s.nodes[0].lcm
+                chains = sorted(n.chain for n in s.stable_nodes)
+                assert chains == sorted(c.stabilised.chains)
+                for n in s.stable_nodes:
+                    assert n.order == sum(big_l // c.raw.source_edge_index[i] for i in n.chain)
+                    if c.stable_source.codim == 1 and c.stable_source.genus >= 2:
+                        assert n.type == c.stable_source_name
+
+
+def test_rational_bridge_merges_two_orders():
+    # 2|4 split, degree 2, genus 2: source g0 = g1 with two nodes of index 1 (a
+    # rational bridge); L = 1, one branch; the stable loop is smoothed by s1*s2 = t^2.
+    [c] = stratum_covers(parse_graph("g0{1,2}, g0{3,4,5,6} | 0-1"), 2, [(2,)] * 6)
+    s = local_structure(c)
+    assert [(n.order, n.type, len(n.chain)) for n in s.stable_nodes] == [(2, "delta_0", 2)]
+
+
+def test_separating_node_of_index_two():
+    # 3|3 split: two elliptic curves meeting at a point of index 2; L = 2, one
+    # branch, order L/e = 1.
+    [c] = stratum_covers(parse_graph("g0{1,2,3}, g0{4,5,6} | 0-1"), 2, [(2,)] * 6)
+    s = local_structure(c)
+    assert (s.nodes[0].indices, s.nodes[0].lcm, s.branches) == ((2,), 2, 1)
+    assert [(n.order, n.type) for n in s.stable_nodes] == [(1, "delta_1")]

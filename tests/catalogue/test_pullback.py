@@ -1,0 +1,64 @@
+"""Pullbacks of boundary divisors: the branch-total identity and hand-worked values."""
+
+from fractions import Fraction
+
+import pytest
+from hypothesis import given, settings, strategies as st
+
+from covertree.catalogue.pullback import boundary_divisors, build_pullback
+from covertree.errors import ProblemError
+from covertree.hurwitz.problem import HurwitzProblem
+
+PROBLEMS = [(2, 0, 2), (2, 0, 3), (3, 0, 2), (2, 1, 2), (2, 1, 3), (3, 1, 2), (4, 1, 2), (2, 2, 3)]
+
+
+@pytest.mark.parametrize("degree,target,genus", PROBLEMS)
+def test_branch_total_is_the_hurwitz_number(degree, target, genus):
+    pb = build_pullback(HurwitzProblem.build(degree, target, genus=genus))
+    assert pb.rows and not pb.failures
+    assert all(r.branch_total == pb.hurwitz_number for r in pb.rows)
+    assert all(set(r.coefficients) == set(boundary_divisors(genus)) for r in pb.rows)
+    assert all(c >= 0 for r in pb.rows for c in r.coefficients.values())
+
+
+@settings(max_examples=8, deadline=None)
+@given(st.sampled_from([(2, 0, 2), (2, 0, 3), (2, 1, 2), (3, 1, 2), (2, 1, 3)]), st.booleans())
+def test_branch_total_labelled_or_not(problem, labeled):
+    d, h, g = problem
+    pb = build_pullback(HurwitzProblem.build(d, h, genus=g), labeled=labeled)
+    assert not pb.failures
+
+
+def test_labelled_rows_agree_with_their_orbit():
+    p = HurwitzProblem.build(2, 0, genus=2)
+    orbits = build_pullback(p)
+    labelled = build_pullback(p, labeled=True)
+    assert sum(r.base.orbit_size for r in orbits.rows) == len(labelled.rows) == 25  # 2^5 - 7 divisors
+    values = {tuple(sorted(r.coefficients.items())) for r in labelled.rows}
+    assert values == {tuple(sorted(r.coefficients.items())) for r in orbits.rows}
+
+
+def test_hand_worked_genus_2_double_covers_of_the_line():
+    # Worked by hand.  H = 1/2 (one hyperelliptic cover, |Aut| = 2).
+    # 2|4 divisor: over the 2-point side the node has trivial monodromy, so two
+    #   nodes of index 1 join a rational curve (double cover branched at 2 points)
+    #   to an elliptic curve (branched at 4): one cover, |Aut| = 2 (the involution),
+    #   L = 1, one branch; the rational bridge stabilises to one loop smoothed by
+    #   s1*s2 = t^2, order 1 + 1 = 2: c(delta_0) = 1 * 2 / 2 = 1, c(delta_1) = 0.
+    #   Check: #branches * L / |Aut| = 1/2 = H.
+    # 3|3 divisor: the node has monodromy a transposition, one node of index 2
+    #   joining two elliptic curves: one cover, |Aut| = 4 (independent
+    #   involutions), L = 2, prod(e)/L = 1 branch, the node smoothed to order
+    #   L/e = 1: c(delta_1) = 1 * 1 / 4 = 1/4, c(delta_0) = 0.
+    #   Check: 1 * 2 / 4 = 1/2 = H.  (The brief's expected values are confirmed.)
+    pb = build_pullback(HurwitzProblem.build(2, 0, genus=2))
+    got = {r.base.graph.notation: r.coefficients for r in pb.rows}
+    assert got == {
+        "g0{1,2}, g0{3,4,5,6} | 0-1": {"delta_0": Fraction(1), "delta_1": Fraction(0)},
+        "g0{1,2,3}, g0{4,5,6} | 0-1": {"delta_0": Fraction(0), "delta_1": Fraction(1, 4)},
+    }
+
+
+def test_no_mbar_for_genus_below_two():
+    with pytest.raises(ProblemError, match="G >= 2"):
+        build_pullback(HurwitzProblem.build(2, 1, genus=1, profiles=["1,1"]))
