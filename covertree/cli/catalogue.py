@@ -150,4 +150,4 @@ def catalogue_table(cat: Catalogue) -> str:
     head = Table(title=f"admissible covers: genus {p.genus} over genus {p.target_genus}, degree {p.degree}, "
                        f"profiles {' '.join('(' + str(m) + ')' for m in p.profiles)}; Hurwitz number "
                        f"{rational_str(cat.hurwitz_number)}", show_header=False, box=None)
-    return table_text(head, *(_stratum_table(s) for s in cat.strata), _landing_table(cat), width=120)
+    return table_text(head, *(_stratum_table(s) for s in cat.strata), _landing_table(cat), width=100)
