@@ -17,9 +17,15 @@ the next new one, so that every tuple is produced in its breadth-first normal
 form from each start sheet, never as one of its ``k!`` labellings.  A tuple is
 kept when its normal form from 0 is the least among the normal forms from all
 ``k`` start sheets; the start sheets giving the same normal form are exactly
-the centraliser.  Cycle types prescribed at legs prune the search as cycles
-close; one special point (a half-edge if there is one) is solved from the
-relation.  This is the idea of the low-index subgroups algorithm.
+the centraliser.  Forms are compared in the order the slots are filled
+(sheet-major), so a partial tuple is cut as soon as another start sheet is
+already smaller.  If a special point is free, one free point is solved from
+the relation; otherwise all generators are grown and the relation is traced
+through each new image, defining the images it forces (coset enumeration).
+Prescribed cycle types prune as cycles close and chains grow, and force images
+(a chain as long as the longest allowed cycle closes; the remaining sheets are
+fixed once no longer cycle is allowed).  This is the low-index subgroups
+algorithm.
 
 References
 ----------
@@ -39,11 +45,11 @@ Degree-2 covers of a sphere with three special points, types free:
 
 from __future__ import annotations
 
-from collections.abc import Iterator, Sequence
+from collections.abc import Sequence
 from dataclasses import dataclass, field
 from functools import cached_property
 
-from covertree.symmetric.permutations import Perm, commutator, compose, cycle_type, inverse
+from covertree.symmetric.permutations import Perm, cycle_type
 
 #: Allowed cycle lengths at a special point: length -> maximal number of cycles,
 #: or ``None`` when the type is free (a half-edge).
@@ -193,90 +199,164 @@ def _complete(rows: tuple[Perm, ...], order: list[int], handles: int, n: int,
     >>> _complete(((1, 0),), [1], 0, 2, 0, 2)
     ((1, 0), (1, 0))
     """
-    full: list[Perm | None] = [None] * (2 * handles + n)
+    full: list[Perm] = [()] * (2 * handles + n)
     for g, perm in zip(order, rows):
         full[g] = perm
-    if solved is None:
-        return tuple(full)
-    prefix = tuple(range(k))
-    for i in range(handles):
-        prefix = compose(prefix, commutator(full[2 * i], full[2 * i + 1]))
-    base = 2 * handles
-    for p in range(solved):
-        prefix = compose(prefix, full[base + p])
-    suffix = tuple(range(k))
-    for p in range(solved + 1, n):
-        suffix = compose(suffix, full[base + p])
-    full[base + solved] = compose(inverse(prefix), inverse(suffix))
+    if solved is not None:
+        before = full[:2 * handles + solved]
+        after = full[2 * handles + solved + 1:]
+        full[2 * handles + solved] = _solve(before, after, handles, k)
     return tuple(full)
 
 
-class _Table:
-    """Partial permutations ``img``/``pre`` (``-1`` undefined) being grown, the
-    cycles closed so far at prescribed generators, and a trail for undoing.
+def _solve(before: list[Perm], after: list[Perm], handles: int, k: int) -> Perm:
+    """The ``s`` with ``[a_1,b_1]...(specials before) s (specials after) = 1``,
+    where ``before`` starts with the ``2 * handles`` handle generators.
 
-    ``words[g]`` lists the cyclic rotations of the relator that begin with the
-    letter ``g`` or ``g^-1``, as ``(sign, letters)`` with each letter given by
-    its forward and backward arrays, so that tracing needs no lookups.
+    >>> _solve([(1, 0, 2)], [(0, 2, 1)], 0, 3)
+    (2, 0, 1)
+    """
+    word: list[Perm] = []
+    for i in range(handles):
+        a, b = before[2 * i], before[2 * i + 1]
+        word += [a, b, _inverse(a), _inverse(b)]
+    word += before[2 * handles:]
+    s = [0] * k
+    for y in range(k):
+        x = y
+        for perm in after:
+            x = perm[x]
+        for perm in word:
+            x = perm[x]
+        s[x] = y
+    return tuple(s)
+
+
+def _inverse(perm: Perm) -> list[int]:
+    inv = [0] * len(perm)
+    for i, j in enumerate(perm):
+        inv[j] = i
+    return inv
+
+
+class _Table:
+    """Partial permutations ``img``/``pre`` (``-1`` undefined) being grown, with
+    a trail for undoing.
+
+    At a prescribed generator it counts the closed cycles by length, the cycles
+    of length at least 2 still allowed (``spare``) and the open chains; it forces
+    the images this leaves no choice about: a chain as long as the longest
+    allowed cycle closes, and once no chain is open and no longer cycle is
+    allowed every remaining sheet is fixed.  ``words[g]`` lists the rotations of
+    the relator beginning with the letter ``g`` or ``g^-1``, each letter given by
+    its forward and backward arrays.  New images wait in ``todo`` to be traced.
     """
 
-    __slots__ = ("img", "pre", "caps", "longest", "closed", "trail", "words")
+    __slots__ = ("k", "img", "pre", "caps", "longest", "closed", "stats", "trail", "todo", "words")
 
     def __init__(self, k: int, gen_allow: list[Allowance],
                  relator: tuple[tuple[int, int], ...] | None) -> None:
         r = len(gen_allow)
+        self.k = k
         self.img = [[-1] * k for _ in range(r)]
         self.pre = [[-1] * k for _ in range(r)]
         self.caps = [None if a is None else [a.get(m, 0) for m in range(k + 1)] for a in gen_allow]
-        self.longest = [max(a, default=0) if a is not None else k for a in gen_allow]
+        self.longest = [k if c is None else max((m for m in range(k + 1) if c[m] > 0), default=0)
+                        for c in self.caps]
         self.closed = [[0] * (k + 1) for _ in range(r)]
-        self.trail: list[tuple[int, int, int]] = []
+        self.stats = [[0 if c is None else sum(c[2:]), 0] for c in self.caps]
+        self.trail: list[tuple[int, int, int, int]] = []
+        self.todo: list[tuple[int, int]] = []
         self.words = _rotations(relator, r, self.img, self.pre)
 
-    def define(self, g: int, x: int, y: int) -> bool:
-        """Set ``g: x -> y`` (both free) unless a prescribed type forbids it."""
-        row, back, cap = self.img[g], self.pre[g], self.caps[g]
-        length = 0
-        if cap is not None:
-            length = _closing_length(row, back, x, y)
-            if length > 0:
-                if self.closed[g][length] >= cap[length]:
-                    return False
-                self.closed[g][length] += 1
-            elif -length >= self.longest[g]:
+    def start(self) -> bool:
+        """Fix every sheet of the generators whose type is the identity."""
+        for g, st in enumerate(self.stats):
+            if self.caps[g] is not None and st[0] == 0 and not self._fill(g):
                 return False
-            else:
-                length = 0
-        row[x], back[y] = y, x
-        self.trail.append((g, x, length))
+        self.todo.clear()
         return True
+
+    def define(self, g: int, x: int, y: int) -> bool:
+        """Set ``g: x -> y`` (``x`` without image, ``y`` without preimage) and
+        what it forces, unless a prescribed type forbids it."""
+        row, back, cap, st = self.img[g], self.pre[g], self.caps[g], self.stats[g]
+        if cap is None:
+            row[x], back[y] = y, x
+            self.trail.append((g, x, 0, 0))
+            self.todo.append((g, x))
+            return True
+        length = _closing_length(row, back, x, y)
+        if length > 0:
+            return self._close(g, x, y, length)
+        if -length >= self.longest[g]:
+            return False
+        grown = (back[x] < 0) + (row[y] < 0) - 1
+        if st[1] + grown > st[0]:
+            return False
+        st[1] += grown
+        row[x], back[y] = y, x
+        self.trail.append((g, x, 0, grown))
+        self.todo.append((g, x))
+        if 1 - length < self.longest[g]:
+            return True
+        while row[y] >= 0:
+            y = row[y]
+        while back[x] >= 0:
+            x = back[x]
+        return self.define(g, y, x)
+
+    def _close(self, g: int, x: int, y: int, length: int) -> bool:
+        """Set ``g: x -> y`` closing a cycle of the given length."""
+        closed, st = self.closed[g], self.stats[g]
+        if closed[length] >= self.caps[g][length]:
+            return False
+        closed[length] += 1
+        if length > 1:
+            st[0] -= 1
+            st[1] -= 1
+        self.img[g][x], self.pre[g][y] = y, x
+        self.trail.append((g, x, length, 0))
+        self.todo.append((g, x))
+        return length == 1 or st[0] > 0 or st[1] > 0 or self._fill(g)
+
+    def _fill(self, g: int) -> bool:
+        """Fix every sheet still without an image under ``g``."""
+        row = self.img[g]
+        return all(row[z] >= 0 or self._close(g, z, z, 1) for z in range(self.k))
 
     def undo(self, mark: int) -> None:
         """Forget every image set since the trail had length ``mark``."""
-        trail, img, pre, closed = self.trail, self.img, self.pre, self.closed
+        trail, img, pre, closed, stats = self.trail, self.img, self.pre, self.closed, self.stats
         while len(trail) > mark:
-            g, x, length = trail.pop()
+            g, x, length, grown = trail.pop()
             pre[g][img[g][x]] = -1
             img[g][x] = -1
             if length:
                 closed[g][length] -= 1
+                if length > 1:
+                    stats[g][0] += 1
+                    stats[g][1] += 1
+            else:
+                stats[g][1] -= grown
 
-    def deduce(self, g: int, x: int) -> bool:
-        """Trace the relator through the new image ``g: x -> y`` and through
-        every image it forces; ``False`` on a contradiction."""
-        words, img = self.words, self.img
+    def deduce(self) -> bool:
+        """Trace the relator through every new image and through every image
+        it forces; ``False`` (and ``todo`` emptied) on a contradiction."""
+        words, img, todo = self.words, self.img, self.todo
         if words is None:
+            todo.clear()
             return True
-        todo = [(g, x)]
         while todo:
             g, x = todo.pop()
             y = img[g][x]
             for sign, word in words[g]:
-                if not self._scan(word, x if sign > 0 else y, todo):
+                if not self._scan(word, x if sign > 0 else y):
+                    todo.clear()
                     return False
         return True
 
-    def _scan(self, word: tuple, p: int, todo: list[tuple[int, int]]) -> bool:
+    def _scan(self, word: tuple, p: int) -> bool:
         """Trace ``word`` (which must return) forwards and backwards from ``p``;
         define the one missing image if only one is missing."""
         x, m, size = p, 0, len(word)
@@ -302,10 +382,7 @@ class _Table:
             return False
         if sign < 0:
             x, y = y, x
-        if not self.define(g, x, y):
-            return False
-        todo.append((g, x))
-        return True
+        return self.define(g, x, y)
 
 
 def _rotations(relator: tuple[tuple[int, int], ...] | None, r: int,
@@ -344,7 +421,7 @@ def _closing_length(row: list[int], back: list[int], i: int, j: int) -> int:
 
 def _canonical_forms(k: int, gen_allow: list[Allowance],
                      relator: tuple[tuple[int, int], ...] | None = None
-                     ) -> Iterator[tuple[tuple[Perm, ...], tuple[Perm, ...]]]:
+                     ) -> list[tuple[tuple[Perm, ...], tuple[Perm, ...]]]:
     """Transitive tuples in breadth-first normal form from sheet 0 that are
     least among the normal forms from all start sheets, with their centralisers.
 
@@ -358,43 +435,55 @@ def _canonical_forms(k: int, gen_allow: list[Allowance],
     """
     r = len(gen_allow)
     if r == 0:
-        if k == 1:
-            yield (), ((0,),)
-        return
+        return [((), ((0,),))] if k == 1 else []
     table = _Table(k, gen_allow, relator)
-    yield from _grow(0, 1, tuple(range(1, k)), table, k, r)
+    out: list[tuple[tuple[Perm, ...], tuple[Perm, ...]]] = []
+    if table.start():
+        _grow(0, 1, tuple(range(1, k)), table, out)
+    return out
 
 
 def _grow(slot: int, reached: int, alive: tuple[int, ...], table: _Table,
-          k: int, r: int) -> Iterator[tuple[tuple[Perm, ...], tuple[Perm, ...]]]:
-    if slot == k * r:
+          out: list[tuple[tuple[Perm, ...], tuple[Perm, ...]]]) -> None:
+    """Fill the first undefined slot at or after ``slot`` in every way (an
+    already reached sheet or the next new one) and recurse."""
+    img, pre, k = table.img, table.pre, table.k
+    r = len(img)
+    end = k * r
+    while slot < end and img[slot % r][slot // r] >= 0:
+        slot += 1
+    if slot == end:
         if reached == k:
-            yield tuple(tuple(row) for row in table.img), _centraliser(table.img, alive, k, r)
+            out.append((tuple(tuple(row) for row in img), _centraliser(img, alive, k)))
         return
     i, g = divmod(slot, r)
     if i >= reached:
         return
-    img, pre = table.img, table.pre
-    if img[g][i] >= 0:
-        yield from _grow(slot + 1, reached, alive, table, k, r)
-        return
-    back, mark = pre[g], len(table.trail)
+    row, back, mark = img[g], pre[g], len(table.trail)
+    plain = table.words is None and table.caps[g] is None
     for j in range(min(reached + 1, k)):
         if back[j] >= 0:
             continue
-        if table.define(g, i, j) and table.deduce(g, i):
-            still = _still_least(img, alive, k, r)
-            if still is not None:
-                yield from _grow(slot + 1, max(reached, j + 1), still, table, k, r)
-        table.undo(mark)
+        if plain:
+            row[i], back[j] = j, i
+        elif not (table.define(g, i, j) and table.deduce()):
+            table.undo(mark)
+            continue
+        still = _still_least(img, alive, k)
+        if still is not None:
+            _grow(slot + 1, max(reached, j + 1), still, table, out)
+        if plain:
+            row[i], back[j] = -1, -1
+        else:
+            table.undo(mark)
 
 
-def _still_least(img: list[list[int]], alive: tuple[int, ...], k: int, r: int) -> tuple[int, ...] | None:
+def _still_least(img: list[list[int]], alive: tuple[int, ...], k: int) -> tuple[int, ...] | None:
     """``None`` if some start sheet in ``alive`` gives a smaller form; otherwise
     the starts not yet known to give a larger one."""
     still = []
     for start in alive:
-        sign = _compare_from(img, start, k, r)[0]
+        sign = _compare_from(img, start, k)[0]
         if sign < 0:
             return None
         if sign == 0:
@@ -402,7 +491,7 @@ def _still_least(img: list[list[int]], alive: tuple[int, ...], k: int, r: int) -
     return tuple(still)
 
 
-def _compare_from(img: list[list[int]], start: int, k: int, r: int) -> tuple[int, list[int]]:
+def _compare_from(img: list[list[int]], start: int, k: int) -> tuple[int, list[int]]:
     """Compare, in slot order and as far as both are defined, the normal form
     from ``start`` with the form from 0 (``img`` itself): -1 smaller, 1 larger,
     0 equal so far; also the old sheet at each new label."""
@@ -426,10 +515,10 @@ def _compare_from(img: list[list[int]], start: int, k: int, r: int) -> tuple[int
     return 0, old
 
 
-def _centraliser(img: list[list[int]], alive: tuple[int, ...], k: int, r: int) -> tuple[Perm, ...]:
+def _centraliser(img: list[list[int]], alive: tuple[int, ...], k: int) -> tuple[Perm, ...]:
     """At a complete least form, the maps sending 0 to a start with the same
     form (every start left in ``alive`` gives the same form)."""
     cent = [tuple(range(k))]
     for start in alive:
-        cent.append(tuple(_compare_from(img, start, k, r)[1]))
+        cent.append(tuple(_compare_from(img, start, k)[1]))
     return tuple(cent)

@@ -1,0 +1,194 @@
+"""Tests of the enumeration of connected pieces (covertree.monodromy.pieces).
+
+The library is compared with the first, simple implementation kept in
+``reference_pieces`` and with brute force over all of ``S_k`` (classes found by
+the least relabelling, centralisers by trying every permutation), then with
+published counts.
+"""
+
+from __future__ import annotations
+
+from collections import Counter
+from fractions import Fraction
+from itertools import permutations
+from math import factorial
+
+import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+from covertree.monodromy.pieces import Piece, connected_pieces
+from covertree.symmetric.permutations import commutator, compose, cycle_type, identity, inverse
+from tests.monodromy import reference_pieces
+
+
+def _simple(k: int) -> dict[int, int]:
+    return {2: 1, 1: k - 2}
+
+
+def _relabel(gens: tuple, sigma: tuple) -> tuple:
+    """Every ``p`` in ``gens`` as ``sigma^-1 p sigma`` (sheet ``i`` renamed ``sigma[i]``)."""
+    out = []
+    for p in gens:
+        q = [0] * len(p)
+        for i, j in enumerate(p):
+            q[sigma[i]] = sigma[j]
+        out.append(tuple(q))
+    return tuple(out)
+
+
+def _class_key(gens: tuple, k: int) -> tuple:
+    """A form of the conjugacy class of ``gens`` independent of any enumeration:
+    the least of its ``k!`` relabellings."""
+    return min(_relabel(gens, sigma) for sigma in permutations(range(k)))
+
+
+def _classes(pieces: list) -> Counter:
+    return Counter((_class_key(p.gens, p.degree), p.centraliser_order) for p in pieces)
+
+
+def _brute_centraliser_order(gens: tuple, k: int) -> int:
+    return sum(all(compose(s, p) == compose(p, s) for p in gens) for s in permutations(range(k)))
+
+
+def _is_transitive(gens: tuple, k: int) -> bool:
+    seen, todo = {0}, [0]
+    while todo:
+        x = todo.pop()
+        for p in gens:
+            if p[x] not in seen:
+                seen.add(p[x])
+                todo.append(p[x])
+    return len(seen) == k
+
+
+def _fits(perm: tuple, allowance: dict[int, int] | None) -> bool:
+    if allowance is None:
+        return True
+    return all(allowance.get(m, 0) >= c for m, c in Counter(cycle_type(perm)).items())
+
+
+def _check_valid(piece: Piece, k: int, h: int, allowed: list) -> None:
+    gens = piece.gens
+    assert piece.degree == k and piece.handles == h and piece.n_special == len(allowed)
+    product = identity(k)
+    for i in range(h):
+        product = compose(product, commutator(gens[2 * i], gens[2 * i + 1]))
+    for p in range(len(allowed)):
+        product = compose(product, piece.special(p))
+        assert _fits(piece.special(p), allowed[p])
+    assert product == identity(k)
+    assert _is_transitive(gens, k)
+    assert len(set(piece.centraliser)) == piece.centraliser_order
+    for c in piece.centraliser:
+        assert all(compose(c, p) == compose(p, c) for p in gens)
+
+
+def _compare_with_reference(k: int, h: int, allowed: list) -> None:
+    new = connected_pieces(k, h, allowed)
+    old = reference_pieces.connected_pieces(k, h, allowed)
+    for piece in new:
+        _check_valid(piece, k, h, allowed)
+    classes = _classes(new)
+    assert max(classes.values(), default=1) == 1, "a class listed twice"
+    assert classes == _classes(old)
+
+
+SHAPES = (
+    [(k, 0, a) for k in range(1, 6) for a in (
+        [], [None], [None, None], [None] * 3, [{1: k}, None, None],
+        [{3: 1, 1: k}] * 3, [{2: 2, 1: k}, {3: 1, 1: k}, {k: 1}],
+        [_simple(k), _simple(k), None], [{2: 1, 1: k}, {2: 3, 4: 1}, {1: 0, 5: 1}, None])]
+    + [(k, 0, [_simple(k)] * 4) for k in range(2, 5)]
+    + [(k, 1, a) for k in range(1, 6) for a in (
+        [], [None], [{3: 1, 1: k}], [{2: 1, 1: k}, None], [{1: k}], [{2: 2, 1: k - 4}])]
+    + [(k, 1, [_simple(k)] * 2) for k in range(2, 6)]
+    + [(k, 2, a) for k in range(1, 4) for a in ([], [None], [{1: k}], [{2: 1, 1: k}], [{3: 1}])]
+)
+
+
+@pytest.mark.parametrize("k, h, allowed", SHAPES)
+def test_same_classes_as_reference(k, h, allowed):
+    _compare_with_reference(k, h, allowed)
+
+
+@st.composite
+def _shapes(draw):
+    k = draw(st.integers(1, 4))
+    h = draw(st.integers(0, 2 if k <= 3 else 1))
+    allowance = st.none() | st.dictionaries(st.integers(1, k + 1), st.integers(0, k), max_size=3)
+    return k, h, draw(st.lists(allowance, max_size=3 if h < 2 else 1))
+
+
+@settings(max_examples=60, deadline=None)
+@given(_shapes())
+def test_same_classes_as_reference_drawn(shape):
+    _compare_with_reference(*shape)
+
+
+@pytest.mark.parametrize("k, h, allowed", [
+    (4, 0, [None] * 3), (5, 0, [None] * 3), (4, 1, [None]), (5, 1, [_simple(5)] * 2),
+    (4, 0, [{2: 2}, {2: 2}, None]), (3, 2, [{1: 3}]), (4, 1, [{1: 4}])])
+def test_centraliser_orders_by_brute_force(k, h, allowed):
+    for piece in connected_pieces(k, h, allowed):
+        assert piece.centraliser_order == _brute_centraliser_order(piece.gens, k)
+
+
+def test_all_classes_by_brute_force():
+    # every transitive pair in S_4 (h = 1, one free point solved) lies in exactly one class
+    k = 4
+    pieces = connected_pieces(k, 1, [None])
+    keys = {_class_key(p.gens, k) for p in pieces}
+    count = 0
+    for a in permutations(range(k)):
+        for b in permutations(range(k)):
+            if _is_transitive((a, b), k):
+                gens = (a, b, inverse(commutator(a, b)))
+                assert _class_key(gens, k) in keys
+                count += 1
+    assert count == sum(Fraction(factorial(k), p.centraliser_order) for p in pieces)
+
+
+def test_deterministic():
+    first = connected_pieces(5, 1, [_simple(5)] * 2)
+    assert [p.gens for p in first] == [p.gens for p in connected_pieces(5, 1, [_simple(5)] * 2)]
+    assert [p.genus for p in first] == [2] * len(first)
+
+
+def test_small_degrees():
+    assert [p.gens for p in connected_pieces(1, 0, [])] == [()]
+    assert [p.gens for p in connected_pieces(1, 1, [None])] == [((0,), (0,), (0,))]
+    assert connected_pieces(2, 0, [{1: 2}]) == []
+    assert connected_pieces(3, 0, [{2: 1, 1: 1}] * 3) == []
+
+
+def _weight(pieces: list, profiles: list) -> Fraction:
+    return sum((Fraction(1, p.centraliser_order) for p in pieces
+                if all(p.profile(j) == mu for j, mu in enumerate(profiles))), Fraction(0))
+
+
+@pytest.mark.parametrize("d, expected", [(2, 2), (3, 16), (4, 60), (5, 160), (6, 360), (7, 672)])
+def test_published_genus_two_covers_of_elliptic_curve(d, expected):
+    # OEIS A170991 (connected genus-2 covers of an elliptic curve with two simple
+    # branch points, degree d): 2, 16, 60, 160, 360, 672, ...
+    simple = (2,) + (1,) * (d - 2)
+    assert _weight(connected_pieces(d, 1, [_simple(d)] * 2), [simple, simple]) == expected
+
+
+@pytest.mark.parametrize("d", [2, 3, 4, 5])
+def test_published_genus_zero_simple_hurwitz(d):
+    # Hurwitz 1891 (Math. Ann. 39): connected genus-0 covers of P^1 with 2d-2
+    # simple branch points number d^(d-3) (2d-2)! / d!
+    simple = (2,) + (1,) * (d - 2)
+    pieces = connected_pieces(d, 0, [_simple(d)] * (2 * d - 2))
+    expected = Fraction(d) ** (d - 3) * factorial(2 * d - 2) / factorial(d)
+    assert _weight(pieces, [simple] * (2 * d - 2)) == expected
+
+
+def test_published_subgroups_of_genus_two_surface_group():
+    # A subgroup of index k is a transitive action with a marked sheet, so it
+    # counts k / |centraliser| per class.  Index 2: the 2^4 - 1 = 15 nonzero
+    # maps to Z/2 (common knowledge).  Index 3: 220 (OEIS A049293, subgroups of
+    # index n in the fundamental group of a closed orientable genus-2 surface).
+    assert _weight(connected_pieces(2, 2, [{1: 2}]), [(1, 1)]) == Fraction(15, 2)
+    assert _weight(connected_pieces(3, 2, [{1: 3}]), [(1, 1, 1)]) == Fraction(220, 3)
