@@ -1,0 +1,174 @@
+"""Stabilisation of source curves: unit cases, properties, and where the
+sources of catalogues land in Mbar_G."""
+
+from __future__ import annotations
+
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+from covertree.catalogue.catalogue import build_catalogue
+from covertree.graphs.dual_graph import DualGraph, StableGraph
+from covertree.graphs.enumerate import stable_graphs
+from covertree.hurwitz.problem import HurwitzProblem
+from covertree.stabilisation.stabilise import stabilise
+from tests.catalogue.test_oracle_agreement import tiny_stabilise
+
+
+def _walks(edges, chain, start):
+    """The vertices visited walking the chain's edges from ``start``, or None."""
+    visited = [start]
+    for n in chain:
+        a, b = edges[n]
+        if visited[-1] not in (a, b):
+            return None
+        visited.append(b if a == visited[-1] else a)
+    return visited
+
+
+def assert_chains_are_paths(genera, edges, result) -> None:
+    """Each stable edge's chain is a walk, in order, through contracted genus-0
+    vertices, from a vertex of the genus of the edge's first end to one of the
+    genus of its second end; no input edge is in two chains."""
+    used = [n for chain in result.chains for n in chain]
+    assert len(used) == len(set(used))
+    for (a, b), chain in zip(result.edges, result.chains):
+        assert chain
+        walks = [_walks(edges, chain, v) for v in edges[chain[0]]]
+        assert any(
+            w is not None and all(genera[v] == 0 for v in w[1:-1])
+            and genera[w[0]] == result.genera[a] and genera[w[-1]] == result.genera[b]
+            for w in walks
+        ), (chain, edges)
+
+
+def test_rational_tail_is_deleted():
+    s = stabilise([2, 0], [(0, 1)])
+    assert (s.genera, s.edges, s.chains) == ((2,), (), ())
+
+
+def test_tree_of_rational_tails_is_deleted():
+    # a genus-2 curve carrying a rational chain of two and a rational tail with a tail
+    s = stabilise([0, 2, 0, 0, 0], [(1, 0), (0, 2), (1, 3), (3, 4)])
+    assert (s.genera, s.edges, s.chains) == ((2,), (), ())
+
+
+def test_bridge_between_two_elliptic_curves():
+    s = stabilise([1, 0, 1], [(0, 1), (1, 2)])
+    assert (s.genera, s.edges) == ((1, 1), ((0, 1),))
+    assert s.chains == ((0, 1),)
+
+
+def test_chain_of_bridges_recorded_in_order():
+    # E0 - R1 - R2 - R3 - E4, edges numbered out of order along the chain and
+    # given in both orientations
+    genera = [1, 0, 0, 0, 1]
+    edges = [(2, 3), (1, 0), (4, 3), (1, 2)]
+    s = stabilise(genera, edges)
+    assert s.genera == (1, 1) and len(s.edges) == 1 and sorted(s.edges[0]) == [0, 1]
+    # from old vertex 0 to old vertex 4: old edges 1 = (1,0), 3 = (1,2), 0 = (2,3),
+    # 2 = (4,3); the chain is listed from the stable edge's first end to its second
+    along = (1, 3, 0, 2)
+    assert s.chains == ((along if s.edges[0] == (0, 1) else along[::-1]),)
+    assert_chains_are_paths(genera, edges, s)
+
+
+def test_parallel_edges_through_a_bridge_become_a_loop():
+    # a genus-1 curve meeting a rational curve in two points: the rational bridge
+    # turns into a loop on the genus-1 vertex (this is delta_0 of Mbar_2)
+    s = stabilise([1, 0], [(0, 1), (0, 1)])
+    assert (s.genera, s.edges, s.chains) == ((1,), ((0, 0),), ((0, 1),))
+
+
+def test_chain_closing_up_into_a_loop():
+    s = stabilise([2, 0, 0], [(0, 1), (1, 2), (2, 0)])
+    assert (s.genera, s.edges) == ((2,), ((0, 0),))
+    assert sorted(s.chains[0]) == [0, 1, 2] and s.chains[0] in ((0, 1, 2), (2, 1, 0))
+    assert_chains_are_paths([2, 0, 0], [(0, 1), (1, 2), (2, 0)], s)
+
+
+def test_stable_graphs_are_left_alone():
+    # the banana graph of genus 2, and a rational vertex with two loops
+    s = stabilise([0, 0], [(0, 1), (0, 1), (0, 1)])
+    assert (s.genera, s.edges, s.chains) == ((0, 0), ((0, 1),) * 3, ((0,), (1,), (2,)))
+    s = stabilise([0], [(0, 0), (0, 0)])
+    assert (s.genera, s.edges) == ((0,), ((0, 0),) * 2)
+
+
+def test_rational_vertex_with_a_loop_is_not_a_bridge():
+    # valence 2 from one loop: not contracted; the tail on it is
+    s = stabilise([0, 0], [(0, 0), (0, 1)])
+    assert (s.genera, s.edges, s.chains) == ((0,), ((0, 0),), ((0,),))
+
+
+def test_genus_zero_sources_end_as_one_rational_vertex():
+    assert stabilise([0], []).genera == (0,)
+    for genera, edges in [([0, 0], [(0, 1)]), ([0, 0, 0, 0], [(0, 1), (0, 2), (0, 3)]),
+                          ([0, 0, 0], [(1, 0), (2, 1)])]:
+        s = stabilise(genera, edges)
+        assert (s.genera, s.edges, s.chains) == ((0,), (), ())
+
+
+def test_genus_one_sources():
+    # an elliptic curve with rational tails: one genus-1 vertex
+    s = stabilise([0, 1, 0], [(0, 1), (1, 2)])
+    assert (s.genera, s.edges) == ((1,), ())
+    # a cycle of three rational curves: one rational vertex with a loop (never empty)
+    s = stabilise([0, 0, 0], [(0, 1), (1, 2), (2, 0)])
+    assert (s.genera, s.edges) == ((0,), ((0, 0),))
+    assert sorted(s.chains[0]) == [0, 1, 2]
+
+
+@st.composite
+def connected_graphs(draw):
+    n = draw(st.integers(1, 6))
+    genera = draw(st.lists(st.integers(0, 2), min_size=n, max_size=n))
+    edges = [(draw(st.integers(0, v - 1)), v) for v in range(1, n)]  # a spanning tree
+    edges += draw(st.lists(st.tuples(st.integers(0, n - 1), st.integers(0, n - 1)), max_size=3))
+    order = draw(st.permutations(range(len(edges))))
+    return genera, [edges[i] for i in order]
+
+
+@settings(max_examples=60, deadline=None)
+@given(connected_graphs())
+def test_stabilise_properties(graph):
+    genera, edges = graph
+    s = stabilise(genera, edges)
+    before = DualGraph(genera, edges)
+    after = DualGraph(s.genera, s.edges)
+    assert after.genus == before.genus
+    assert after == tiny_stabilise(genera, edges)
+    if before.genus >= 2:
+        assert after.is_stable()
+    assert len(s.chains) == len(s.edges)
+    assert_chains_are_paths(genera, edges, s)
+
+
+# ----------------------------------------------------------------- catalogues in Mbar_G
+
+
+def _stable_sources(d, h, g, given, max_codim):
+    cat = build_catalogue(HurwitzProblem.build(d, h, genus=g, profiles=given), max_codim=max_codim)
+    return cat.problem.genus, {c.stable_source for s in cat.strata for c in s.covers}
+
+
+def test_stable_sources_are_strata_of_mbar_g():
+    for args in [(2, 1, 2, (), 2), (3, 1, 2, (), 2), (2, 1, 3, (), 2), (2, 0, 3, (), 2),
+                 (2, 2, None, ("1,1",), 2), (3, 2, None, ("1^3",), 1), (4, 0, None, ("4", "4", "2,2", "2,2"), 1)]:
+        genus, sources = _stable_sources(*args)
+        assert genus >= 2
+        strata = set(stable_graphs(genus, 0))
+        for g in sources:
+            assert isinstance(g, StableGraph), g.notation
+            assert g.genus == genus and g.n_legs == 0
+            assert g in strata, g.notation
+
+
+def test_hyperelliptic_catalogue_reaches_all_of_mbar_2():
+    # degree 2, six points on P^1, every stratum of Mbar_{0,6} (codim up to 3):
+    # every genus-2 curve is hyperelliptic (common knowledge), so the closure of
+    # the hyperelliptic locus is Mbar_2 and the stable sources are all 7 strata
+    # of Mbar_2 (M. Chan, Combinatorics of the tropical Torelli map, 2012: 7 cells)
+    genus, sources = _stable_sources(2, 0, 2, (), 3)
+    assert genus == 2
+    assert sources == set(stable_graphs(2, 0))
+    assert len(sources) == 7
