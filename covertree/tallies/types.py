@@ -1,0 +1,400 @@
+r"""Weighted tallies of admissible covers from combinatorial types, without
+listing covers (THEORY.md section 7).
+
+Types
+-----
+Fix a base stratum ``G`` (a fixed base curve of that type).  A *type* ``T``
+over ``G`` is: for every base vertex ``v`` a finite set of *pieces*, each with a
+shape (:mod:`covertree.tallies.shapes`: degree ``k``, sub-profiles ``nu_j`` at
+the legs of ``v``, profiles ``alpha_p`` at the half-edge points of ``v``),
+degrees adding up to ``d`` and sub-profiles at leg ``j`` to ``mu_j``; the
+points of ``alpha_p`` (the preimages of the node point ``p`` in the piece) are
+*labelled*; and for every base edge a length-preserving bijection between the
+labelled points over its two sides.  An isomorphism of types renumbers the
+pieces over each vertex (keeping shapes) and relabels the points of equal
+length over each half-edge point within each piece, carrying the bijections to
+the bijections; ``Aut(T)`` is the stabiliser.  A cover ``f`` (THEORY.md section
+3) has a type: its pieces are the orbits at each vertex, its bijections the
+``beta_e``, once the orbits are numbered and the cycles of every ``s_p``
+labelled (a *decoration* of ``f``); different decorations give isomorphic
+types.  The source graph, the node profiles, ``mult`` and connectedness are
+read off the type.
+
+Theorem
+-------
+For every type ``T``,
+
+    sum over covers f of type T (up to isomorphism) of 1/|Aut f|
+        = prod over the pieces i of H_lab(i) / |Aut T|,
+
+with ``H_lab(i) = connected_hurwitz(k_i, h_v, all profiles of i) * prod_p
+|Aut alpha_{i,p}|``.  Multiplying by ``mult`` (a function of the type), the sum
+of the type weights ``mult * prod H_lab / |Aut T|`` over the isomorphism
+classes of types with a given source graph, stable source and node profiles
+equals the list engine's sum of ``mult(f)/|Aut f|`` over the covers with these
+data.
+
+Proof.  (1) *Decorations form an Aut(T)-torsor.*  Let ``Dec(f)`` be the
+decorations of ``f`` of type exactly ``T``.  ``Aut(T)`` acts on it (renumber
+and relabel the decoration); two decorations ``delta, delta'`` of type ``T``
+differ by the renumbering ``delta' o delta^{-1}``, which carries ``T`` to
+``T``, so the action is transitive, and it is free since a decoration is a
+bijection onto the orbits and cycles.  So ``|Dec(f)| = |Aut T|``.
+(2) *Counting decorated covers.*  Let ``D`` be the groupoid of decorated covers
+of type ``T`` (objects: a cover with a decoration of type ``T``; morphisms:
+elements of ``prod_v S_d`` carrying one to the other).  ``Aut(f)`` acts on
+``Dec(f)`` and the classes of ``D`` over ``f`` are its orbits, with stabilisers
+the automorphisms of the decorated objects, so by orbit-stabiliser the
+groupoid cardinality is ``|D| = sum_f |Dec(f)|/|Aut f| = |Aut T| sum_f
+1/|Aut f|``.  On the other hand a decorated cover of type ``T`` is the same as
+a labelled connected local cover of each piece's shape on the sheets of its
+orbit (the gluing is dictated by ``T``), and its morphisms are products of
+bijections between the orbits respecting labels; so ``|D| = prod_v (number of
+ways to cut the sheets into numbered orbits of the sizes k_i, times the
+numbers of labelled transitive tuples) / d! = prod_i (labelled transitive
+tuples on k_i sheets) / k_i!``.  A labelled transitive tuple is a transitive
+tuple with a labelling of the cycles of each ``s_p``, ``prod_p |Aut
+alpha_p|`` of them, so this is ``prod_i H_lab(i)``.  Comparing the two
+expressions proves the theorem.  QED.
+
+How it is summed
+----------------
+Summing over isomorphism classes needs no automorphism groups: with pieces
+numbered (consecutively by vertex and shape) and points labelled, the group
+``S ⋉ L`` (``S`` renumbering pieces of equal vertex and shape, ``L`` relabelling
+points) acts on the set ``X`` of labelled matchings of a fixed list of pieces,
+with stabilisers ``Aut T``, so ``sum_T 1/|Aut T| = |X| / (|S| |L|)``, and
+``|L| = prod_i prod_p |Aut alpha_{i,p}|`` cancels the labelling factors of
+``H_lab``.  Hence, for a list of pieces,
+
+    sum over its types of the weights = mult * prod_i H(i) / |S| * #(labelled
+    matchings with connected source),
+
+grouped by source graph, and the matchings are counted by orbits of
+automorphisms of partial matchings (:mod:`covertree.tallies.gluing`), so the
+work grows with the number of types, never with the number of covers.
+:func:`iter_types` also lists the types themselves with ``|Aut T|``
+(canonical forms of coloured graphs), which the tests compare with the fast
+sum.
+
+A hand example (THEORY.md section 7 checked): double covers of an elliptic
+curve branched over two points, over the nodal rational curve ``g0{1,2} |
+0-0``.  The list engine finds three covers: two unramified over the node with
+``|Aut| = 2``, ``mult = 1``, and one ramified (``mult = 2``, ``|Aut| = 2``):
+total 2.  Types: one piece of degree 2 branched at both legs with ``alpha =
+beta = (1,1)``, genus 0, ``H = 1/2``, ``H_lab = 1/2 * 2! * 2! = 2``; its one
+type up to isomorphism has ``|Aut T| = 2`` (the two bijections of the points
+differ by a relabelling), weight ``1 * 2 / 2 = 1 = 1/2 + 1/2``.  One piece with
+``alpha = beta = (2)``, genus 1, ``H = 1/2``: weight ``2 * 1/2 = 1``.  Total 2.
+
+Examples
+--------
+>>> from covertree.hurwitz.problem import HurwitzProblem
+>>> from covertree.strata.base import base_strata
+>>> problem = HurwitzProblem.build(2, 1, genus=2)
+>>> tallies = tally_catalogue(problem, max_codim=1)
+>>> [(t.base.graph.notation, str(t.total_weight), t.identity_holds) for t in tallies.strata]
+[('g1{1,2}', '2', True), ('g0{1,2} | 0-0', '2', True), ('g0{1,2}, g1 | 0-1', '2', True)]
+>>> [(g.notation, str(w)) for g, w in tallies.strata[1].by_source()]
+[('g1 | 0-0', '1'), ('g0 | 0-0^2', '1')]
+
+References
+----------
+J. Harris and D. Mumford, *On the Kodaira dimension of the moduli space of
+curves*, Invent. Math. 67 (1982) (admissible covers).  The orbit-counting
+(orbit-stabiliser and groupoid cardinality) arguments are classical; see for
+instance J. C. Baez and J. Dolan, *From finite sets to Feynman diagrams*
+(2001), for groupoid cardinality.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Iterator, Sequence
+from dataclasses import dataclass
+from fractions import Fraction
+from functools import lru_cache
+from math import factorial, lcm, prod
+
+from covertree.catalogue.catalogue import problem_hurwitz, select_strata
+from covertree.catalogue.covers import make_graph
+from covertree.errors import IdentityError
+from covertree.graphs.dual_graph import DualGraph, StableGraph
+from covertree.hurwitz.problem import HurwitzProblem
+from covertree.monodromy.local import special_points
+from covertree.stabilisation.stabilise import Stabilised, stabilise
+from covertree.strata.base import BaseStratum
+from covertree.tallies.gluing import count_matchings
+from covertree.tallies.shapes import Shape, local_multisets, piece_shapes
+
+__all__ = ["TallyEntry", "TypeTally", "TallyCatalogue", "tally_stratum", "tally_catalogue", "iter_types"]
+
+Profile = tuple[int, ...]
+
+
+@dataclass(frozen=True)
+class TallyEntry:
+    """The summed weight of the covers with one source graph on one list of
+    pieces (raw data, piece numbering arbitrary within a class).
+
+    Attributes
+    ----------
+    edge_profiles : tuple of profiles
+        Profile over each base node, in the base's edge order.
+    genera : tuple of int
+        Genus of each piece (source vertex).
+    edges : tuple of (int, int, int, int)
+        Source nodes ``(i, j, k, l)``: piece ``i`` over side 0 of base edge
+        ``k``, piece ``j`` over side 1, ramification index ``l``.
+    weight : Fraction
+        Sum of ``mult(f)/|Aut f|`` over the covers with these data.
+    """
+
+    edge_profiles: tuple[Profile, ...]
+    genera: tuple[int, ...]
+    edges: tuple[tuple[int, int, int, int], ...]
+    weight: Fraction
+
+    @property
+    def source(self) -> DualGraph:
+        """The source dual graph (often unstable)."""
+        return _graphs(self.genera, _plain(self.edges))[0]
+
+    @property
+    def stable_source(self) -> DualGraph:
+        """The stabilised source."""
+        return _graphs(self.genera, _plain(self.edges))[1]
+
+    @property
+    def stabilised(self) -> Stabilised:
+        """The stabilisation with its chains of source nodes."""
+        return _graphs(self.genera, _plain(self.edges))[2]
+
+
+def _plain(edges: Sequence[tuple[int, int, int, int]]) -> tuple[tuple[int, int], ...]:
+    return tuple((i, j) for i, j, _, _ in edges)
+
+
+@lru_cache(maxsize=65536)
+def _graphs(genera: tuple[int, ...], edges: tuple[tuple[int, int], ...]):
+    stab = stabilise(genera, edges)
+    return make_graph(genera, edges), make_graph(stab.genera, stab.edges), stab
+
+
+@dataclass(frozen=True)
+class TypeTally:
+    """The tallies over one base stratum (orbit), from types.
+
+    Attributes
+    ----------
+    base : BaseStratum
+    entries : tuple of TallyEntry
+        In a deterministic order.
+    hurwitz_number : Fraction
+    """
+
+    base: BaseStratum
+    entries: tuple[TallyEntry, ...]
+    hurwitz_number: Fraction
+
+    @property
+    def total_weight(self) -> Fraction:
+        """``sum_f mult(f)/|Aut f|`` over the covers over a fixed base curve."""
+        return sum((e.weight for e in self.entries), Fraction(0))
+
+    @property
+    def identity_holds(self) -> bool:
+        """The degeneration identity: total weight == Hurwitz number."""
+        return self.total_weight == self.hurwitz_number
+
+    def by_source(self) -> list[tuple[DualGraph, Fraction]]:
+        """Summed weight per stable source stratum, sorted canonically (as
+        :meth:`covertree.catalogue.catalogue.StratumResult.by_source`)."""
+        return _sorted_tally((e.stable_source, e.weight) for e in self.entries)
+
+    def by_profiles(self) -> list[tuple[tuple[Profile, ...], Fraction]]:
+        """Summed weight per tuple of node profiles (base edge order), sorted."""
+        tally: dict[tuple, Fraction] = {}
+        for e in self.entries:
+            tally[e.edge_profiles] = tally.get(e.edge_profiles, Fraction(0)) + e.weight
+        return sorted(tally.items())
+
+    def by_class(self) -> list[tuple[tuple[Profile, ...], DualGraph, DualGraph, Fraction]]:
+        """Summed weight per ``(node profiles, source, stable source)``, sorted."""
+        tally: dict[tuple, Fraction] = {}
+        for e in self.entries:
+            key = (e.edge_profiles, e.source, e.stable_source)
+            tally[key] = tally.get(key, Fraction(0)) + e.weight
+        rows = sorted(tally.items(), key=lambda kv: (kv[0][0], kv[0][2].key, kv[0][1].key))
+        return [(p, s, t, w) for (p, s, t), w in rows]
+
+    def pullback_orders(self) -> list[tuple[TallyEntry, Fraction, list[tuple[int, int]]]]:
+        """For a codimension-one base: per entry, ``weight / L`` (``L`` the lcm of
+        the node profile) and the stable nodes as ``(index in the
+        stabilisation's edges, order)`` with order ``sum L/e`` over the chain.
+        ``c(D, delta) = sum weight/L * (sum of the orders of the nodes of type
+        delta)`` (THEORY.md section 4: ``#branches / |Aut f| = mult / (L
+        |Aut f|)``).
+
+        Raises
+        ------
+        IdentityError
+            If the base stratum is not of codimension one.
+        """
+        if self.base.codim != 1:
+            raise IdentityError("orders along a branch need a codimension-one base stratum")
+        out = []
+        for e in self.entries:
+            big_l = lcm(*e.edge_profiles[0])
+            index = [l for _, _, _, l in e.edges]
+            orders = [(n, sum(big_l // index[s] for s in chain)) for n, chain in enumerate(e.stabilised.chains)]
+            out.append((e, Fraction(e.weight, big_l), orders))
+        return out
+
+
+def _sorted_tally(items) -> list[tuple[DualGraph, Fraction]]:
+    tally: dict[DualGraph, Fraction] = {}
+    for graph, w in items:
+        tally[graph] = tally.get(graph, Fraction(0)) + w
+    return sorted(tally.items(), key=lambda kv: (kv[0].codim, kv[0].key))
+
+
+@dataclass(frozen=True)
+class TallyCatalogue:
+    """A Hurwitz problem, the codimension bound and one tally per stratum
+    (the shape of :class:`covertree.catalogue.catalogue.Catalogue`, no covers)."""
+
+    problem: HurwitzProblem
+    codim: int
+    hurwitz_number: Fraction
+    strata: tuple[TypeTally, ...]
+
+    @property
+    def failures(self) -> list[TypeTally]:
+        """Strata whose degeneration identity fails (each one a bug)."""
+        return [s for s in self.strata if not s.identity_holds]
+
+
+# ---------------------------------------------------------------------------
+# Choices of pieces
+# ---------------------------------------------------------------------------
+
+
+@dataclass(frozen=True)
+class _Vertex:
+    shapes: tuple[Shape, ...]
+    multisets: tuple[tuple[int, ...], ...]
+    halves: tuple[tuple, ...]  # per half point of the vertex: ("half", k, side)
+
+
+def _vertex_data(base: StableGraph, degree: int, genus: int, profiles: Sequence[Profile]) -> list[_Vertex]:
+    out = []
+    for v, spec in enumerate(special_points(base)):
+        legs = tuple(tuple(profiles[s[1] - 1]) for s in spec if s[0] == "leg")
+        halves = tuple(s for s in spec if s[0] == "half")
+        key = (degree, base.genera[v], legs, len(halves), genus)
+        out.append(_Vertex(piece_shapes(*key), tuple(local_multisets(*key)), halves))
+    return out
+
+
+def _union_profiles(shapes: Sequence[Shape], multiset: Sequence[int], n_halves: int) -> tuple[Profile, ...]:
+    return tuple(
+        tuple(sorted((x for i in multiset for x in shapes[i].halves[p]), reverse=True))
+        for p in range(n_halves)
+    )
+
+
+def _choices(base: StableGraph, data: list[_Vertex], genus: int) -> Iterator[tuple[tuple[int, ...], ...]]:
+    """Balanced choices of one local multiset per vertex, genera adding up to
+    at most ``genus``."""
+    where = {}
+    for v, vd in enumerate(data):
+        for p, (_, k, side) in enumerate(vd.halves):
+            where[(k, side)] = (v, p)
+    checks: list[list[tuple]] = [[] for _ in data]
+    for k, (i, j) in enumerate(base.edges):
+        checks[max(i, j)].append((where[(k, 0)], where[(k, 1)]))
+    options = []
+    for vd in data:
+        options.append([(m, _union_profiles(vd.shapes, m, len(vd.halves)), sum(vd.shapes[i].genus for i in m))
+                        for m in vd.multisets])
+    chosen: list = []
+
+    def rec(v: int, genus_left: int):
+        if v == len(data):
+            yield tuple(c[0] for c in chosen)
+            return
+        for option in options[v]:
+            if option[2] > genus_left:
+                continue
+            chosen.append(option)
+            if all(chosen[a][1][pa] == chosen[b][1][pb] for (a, pa), (b, pb) in checks[v]):
+                yield from rec(v + 1, genus_left - option[2])
+            chosen.pop()
+
+    yield from rec(0, genus)
+
+
+def _edge_profiles(base: StableGraph, data: list[_Vertex], choice) -> tuple[Profile, ...]:
+    out = []
+    for k, (i, _) in enumerate(base.edges):
+        p = data[i].halves.index(("half", k, 0))
+        out.append(tuple(sorted((x for s in choice[i] for x in data[i].shapes[s].halves[p]), reverse=True)))
+    return tuple(out)
+
+
+def _class_ids(choice) -> list[int]:
+    """Class of each piece (equal vertex and shape index), consecutive."""
+    out, last, c = [], None, -1
+    for v, multiset in enumerate(choice):
+        for s in multiset:
+            if (v, s) != last:
+                c, last = c + 1, (v, s)
+            out.append(c)
+    return out
+
+
+def _choice_entries(base: StableGraph, data: list[_Vertex], choice, genus: int) -> list[TallyEntry]:
+    vertex = [v for v, m in enumerate(choice) for _ in m]
+    shapes = [data[v].shapes[s] for v, m in enumerate(choice) for s in m]
+    classes = _class_ids(choice)
+    profiles = _edge_profiles(base, data, choice)
+    n_ports = sum(len(p) for p in profiles)
+    genera = tuple(s.genus for s in shapes)
+    if n_ports - len(shapes) + 1 != genus - sum(genera):
+        raise IdentityError(f"Riemann-Hurwitz fails for the pieces {shapes} over {base.notation}")
+    mult = prod(x for p in profiles for x in p)
+    sizes = [classes.count(c) for c in range(classes[-1] + 1)]
+    coeff = Fraction(mult) * prod(s.hurwitz for s in shapes) / prod(factorial(n) for n in sizes)
+    counts = count_matchings(base.edges, vertex, [s.halves for s in shapes], classes)
+    return [TallyEntry(profiles, genera, key, coeff * n) for key, n in sorted(counts.items())]
+
+
+def tally_stratum(problem: HurwitzProblem, base: BaseStratum) -> TypeTally:
+    """The tallies over one base stratum, summed over types.
+
+    Examples
+    --------
+    Genus-2 double covers of ``P^1`` over the ``3|3`` divisor: one cover,
+    ``|Aut| = 4``, ``mult = 2``.
+
+    >>> from covertree.graphs.notation import parse_graph
+    >>> problem = HurwitzProblem.build(2, 0, genus=2)
+    >>> t = tally_stratum(problem, BaseStratum(parse_graph("g0{1,2,3}, g0{4,5,6} | 0-1"), 10))
+    >>> str(t.total_weight), [(g.notation, str(w)) for g, w in t.by_source()]
+    ('1/2', [('g1, g1 | 0-1', '1/2')])
+    """
+    profiles = [tuple(p) for p in problem.profiles]
+    data = _vertex_data(base.graph, problem.degree, problem.genus, profiles)
+    entries: list[TallyEntry] = []
+    for choice in _choices(base.graph, data, problem.genus):
+        entries.extend(_choice_entries(base.graph, data, choice, problem.genus))
+    return TypeTally(base, tuple(entries), problem_hurwitz(problem))
+
+
+def tally_catalogue(problem: HurwitzProblem, max_codim: int = 1, stratum: StableGraph | None = None,
+                    labeled: bool = False) -> TallyCatalogue:
+    """Tallies over every selected base stratum (as
+    :func:`covertree.catalogue.catalogue.build_catalogue` selects them)."""
+    strata = select_strata(problem, max_codim, stratum, labeled)
+    tallies = tuple(tally_stratum(problem, base) for base in strata)
+    return TallyCatalogue(problem, max_codim, problem_hurwitz(problem), tallies)
