@@ -43,10 +43,11 @@ def main() -> None:
 
 
 def _register() -> None:
-    from covertree.cli import catalogue, count, draw, pullback, strata
+    from covertree.cli import catalogue, count, draw, pullback, strata, sweep
 
-    for module in (count, strata, catalogue, pullback, draw):
-        main.add_command(module.command)
+    for module in (count, strata, catalogue, pullback, draw, sweep):
+        for command in getattr(module, "commands", (module.command,)):
+            main.add_command(command)
 
 
 _register()

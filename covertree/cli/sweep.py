@@ -1,0 +1,213 @@
+"""The ``covertree sweep``, ``covertree merge`` and ``covertree export`` commands:
+ranges of Hurwitz problems in one run, split over processes, shards or a dask
+cluster, with a results store that survives interruption."""
+
+from __future__ import annotations
+
+import sys
+from contextlib import contextmanager
+from collections.abc import Iterator
+
+import click
+from rich.console import Console
+from rich.progress import BarColumn, MofNCompleteColumn, Progress, ProgressColumn, TextColumn, TimeElapsedColumn
+from rich.table import Table
+from rich.text import Text
+
+from covertree.cli.params import INT_RANGE, PROFILE, OneLineCommand, emit, format_option, output_option
+from covertree.cli.render import table_text
+from covertree.errors import InputError
+from covertree.export.rational import rational_str
+from covertree.export.sweep import landing_columns, summary_line, sweep_from_json, sweep_to_csv, sweep_to_json, sweep_to_latex
+from covertree.sweep.report import SweepReport, merge_reports, shard_report, store_report, sweep_report
+from covertree.sweep.runner import ProcessBackend, RunOutcome, SerialBackend, run_tasks
+from covertree.sweep.store import ResultStore
+from covertree.sweep.tasks import Plan, SweepSpec, parse_shard, plan_sweep, shard_tasks
+
+FORMATS = ["table", "json", "csv", "latex"]
+
+quiet_option = click.option("--quiet", "-q", is_flag=True, help="No progress bar and no summary on stderr.")
+
+
+def _check_range(name: str, values: list[int] | None, least: int) -> None:
+    bad = [v for v in values or () if v < least]
+    if bad:
+        raise InputError(f"{name} {bad[0]} is not allowed; {name} values must be >= {least}")
+
+
+def _spec(genus, target_genus, degree, profiles, codim, labeled) -> SweepSpec:
+    _check_range("--genus", genus, 0)
+    _check_range("--target-genus", target_genus, 0)
+    _check_range("--degree", degree, 1)
+    return SweepSpec(tuple(genus) if genus else (None,), tuple(target_genus), tuple(degree),
+                     tuple(profiles), codim, labeled)
+
+
+def _backend(jobs: int, dask: str | None):
+    if dask is not None and jobs != 1:
+        raise InputError("--jobs and --dask exclude each other (the cluster has its own workers)")
+    if dask is not None:
+        from covertree.sweep.cluster import DaskBackend
+
+        return DaskBackend(dask)
+    return ProcessBackend(jobs) if jobs > 1 else SerialBackend()
+
+
+class _RateColumn(ProgressColumn):
+    """Finished tasks per second."""
+
+    def render(self, task) -> Text:
+        speed = task.finished_speed or task.speed
+        return Text("-- tasks/s" if speed is None else f"{speed:.2f} tasks/s")
+
+
+@contextmanager
+def _progress(total: int, enabled: bool) -> Iterator:
+    """A stderr progress bar (done/total, elapsed, rate, current problem);
+    yields ``advance(task, was_stored)``."""
+    if not enabled:
+        yield lambda task, was_stored: None
+        return
+    columns = (BarColumn(), MofNCompleteColumn(), TimeElapsedColumn(), _RateColumn(),
+               TextColumn("{task.description}"))
+    with Progress(*columns, console=Console(stderr=True), transient=True) as bar:
+        handle = bar.add_task("sweep", total=total)
+        yield lambda task, was_stored: bar.update(
+            handle, advance=1, description=("stored " if was_stored else "") + task.label)
+
+
+def _run(plan: Plan, tasks, backend, store: str | None, show: bool) -> RunOutcome:
+    with backend:
+        opened = ResultStore(store) if store is not None else None
+        try:
+            with _progress(len(tasks), show and sys.stderr.isatty()) as advance:
+                return run_tasks(tasks, backend, opened, advance)
+        finally:
+            if opened is not None:
+                opened.close()
+
+
+@click.command("sweep", cls=OneLineCommand)
+@click.option("--genus", "-g", "genus", type=INT_RANGE, default=None,
+              help="Source genera: 2, 2..4 or 2,3,5 (default: derived from complete profiles).")
+@click.option("--target-genus", "-t", "target_genus", type=INT_RANGE, required=True,
+              help="Target genera: 1, 0..2 or 0,2.")
+@click.option("--degree", "-d", "degree", type=INT_RANGE, required=True, help="Degrees: 3, 2..8 or 2,3,5.")
+@click.option("--profile", "-p", "profiles", type=PROFILE, multiple=True,
+              help="Profile over the next branch point (repeatable); the rest are simple.")
+@click.option("--codim", "-k", "codim", type=click.IntRange(min=0), default=1, show_default=True,
+              help="Base strata of codimension up to this.")
+@click.option("--labeled", "-l", is_flag=True, help="Every labelled stratum, not one per orbit.")
+@format_option(FORMATS)
+@click.option("--jobs", "-j", "jobs", type=click.IntRange(min=1), default=1, show_default=True,
+              help="Local worker processes.")
+@click.option("--shard", "shard", default=None, help="Run only slice I of N (tasks with index % N == I-1).")
+@click.option("--dask", "dask", default=None, metavar="ADDRESS",
+              help="Submit the tasks to this dask.distributed scheduler (extra covertree[dask]).")
+@click.option("--store", "store", type=click.Path(dir_okay=False), default=None,
+              help="SQLite results store: finished tasks are kept, a rerun computes only the rest.")
+@quiet_option
+@output_option
+def sweep(genus, target_genus, degree, profiles, codim, labeled, fmt, jobs, shard, dask, store, quiet, output):
+    """Run every Hurwitz problem of the ranges over every base stratum of
+    codimension <= K: one row per (problem, stratum) with the number of
+    covers, total weight, Hurwitz number, identity verdict and the weight
+    landing on each boundary divisor delta_i of the source space."""
+    spec = _spec(genus, target_genus, degree, profiles, codim, labeled)
+    piece = parse_shard(shard) if shard is not None else None
+    plan = plan_sweep(spec)
+    tasks = shard_tasks(plan.tasks, *piece) if piece else plan.tasks
+    outcome = _run(plan, tasks, _backend(jobs, dask), store, not quiet)
+    report = shard_report(plan, tasks, outcome.results, piece) if piece else sweep_report(plan, outcome.results)
+    emit(render(report, fmt), output)
+    if not quiet:
+        where = f"shard {piece[0]}/{piece[1]}: " if piece else ""
+        click.echo(f"covertree: sweep: {where}{summary_line(report)}; {len(tasks)} tasks: "
+                   f"{outcome.computed} computed, {outcome.stored} found in the store", err=True)
+    _report_failures(report)
+
+
+@click.command("merge", cls=OneLineCommand)
+@click.argument("files", nargs=-1, required=True, type=click.Path(exists=True, dir_okay=False))
+@format_option(FORMATS)
+@quiet_option
+@output_option
+def merge(files, fmt, quiet, output):
+    """Combine the JSON outputs of the shards 1/N .. N/N of one sweep into the
+    output a single run gives."""
+    reports = []
+    for name in files:
+        with open(name, encoding="utf-8") as handle:
+            reports.append((name, sweep_from_json(handle.read(), name)))
+    report = merge_reports(reports)
+    emit(render(report, fmt), output)
+    if not quiet:
+        click.echo(f"covertree: merge: {len(files)} shards: {summary_line(report)}", err=True)
+    _report_failures(report)
+
+
+@click.command("export", cls=OneLineCommand)
+@click.option("--store", "store", type=click.Path(dir_okay=False), required=True, help="The SQLite results store.")
+@format_option(FORMATS)
+@quiet_option
+@output_option
+def export(store, fmt, quiet, output):
+    """Print every result in a store (nothing is recomputed)."""
+    with ResultStore(store, create=False) as opened:
+        report = store_report(opened.results())
+    emit(render(report, fmt), output)
+    if not quiet:
+        click.echo(f"covertree: export: {summary_line(report)}", err=True)
+    _report_failures(report)
+
+
+commands = (sweep, merge, export)
+command = sweep
+
+
+def render(report: SweepReport, fmt: str) -> str:
+    """The report in one of :data:`FORMATS`."""
+    if fmt == "json":
+        return sweep_to_json(report)
+    if fmt == "csv":
+        return sweep_to_csv(report)
+    if fmt == "latex":
+        return sweep_to_latex(report)
+    return sweep_table(report)
+
+
+def _report_failures(report: SweepReport) -> None:
+    """Say loudly on stderr that a degeneration identity failed, and exit 1."""
+    for row in report.failures:
+        p = row.problem
+        click.echo(f"covertree: BUG: the degeneration identity FAILS for genus {p.genus} over genus "
+                   f"{p.target_genus}, degree {p.degree}, over {row.stratum}: total weight "
+                   f"{rational_str(row.total_weight)} != Hurwitz number {rational_str(row.hurwitz_number)}",
+                   err=True)
+    if report.failures:
+        sys.exit(1)
+
+
+def sweep_table(report: SweepReport) -> str:
+    """The table rendering: one line per (problem, stratum), then skipped problems."""
+    columns = landing_columns(report)
+    table = Table(title="sweep: weight per base stratum and where it lands", caption=summary_line(report))
+    for name in ("g", "h", "d", "profiles", "base", "orbit", "covers", "total", "H", "identity", *columns):
+        table.add_column(name, justify="left" if name in ("profiles", "base", "identity") else "right",
+                         overflow="fold")
+    for row in report.rows:
+        p, landing = row.problem, dict(row.landing)
+        table.add_row(str(p.genus), str(p.target_genus), str(p.degree),
+                      " ".join(f"({mu})" for mu in p.profiles) or "-", row.stratum, str(row.orbit_size),
+                      str(row.n_covers), rational_str(row.total_weight), rational_str(row.hurwitz_number),
+                      "holds" if row.identity_holds else "FAILS",
+                      *(rational_str(landing[c]) if c in landing else "" for c in columns))
+    tables = [table]
+    if report.skipped:
+        skipped = Table(title="skipped problems")
+        for name in ("g", "h", "d", "reason"):
+            skipped.add_column(name, overflow="fold")
+        for s in report.skipped:
+            skipped.add_row("-" if s.genus is None else str(s.genus), str(s.target_genus), str(s.degree), s.reason)
+        tables.append(skipped)
+    return table_text(*tables, width=140)

@@ -1,0 +1,201 @@
+r"""JSON, CSV and LaTeX renderings of a sweep (one row per problem and base
+stratum), and the JSON reader used to merge shards.
+
+The JSON document is a contract (keys are only ever added)::
+
+    {"model_version": int,
+     "sweep": {"genus": [int, ...] | null, "target_genus": [...], "degree": [...],
+               "profiles": [[int, ...], ...], "codim": int, "labeled": bool},   -- not in an export
+     "shard": {"index": I, "count": N, "tasks": T},                             -- only in a shard
+     "task_indices": [int, ...],                                                -- only in a shard
+     "problems": [{"genus", "target_genus", "degree", "profiles"}, ...],
+     "skipped": [{"genus", "target_genus", "degree", "reason"}, ...],
+     "strata": [ROW, ...],
+     "summary": {"problems", "skipped", "strata", "covers", "failures"}}
+
+    ROW = {"genus", "target_genus", "degree", "profiles", "base": NOTATION, "codim",
+           "orbit_size", "n_covers", "total_weight": "p/q", "hurwitz_number": "p/q",
+           "identity": bool, "landing": {"delta_0": "p/q", ..., "other": "p/q"}}
+
+``landing`` is the weight whose stable source is the boundary divisor
+``delta_i`` of ``Mbar_g`` (``i = 0 .. g//2``), the rest (smooth or deeper
+stable sources, genus below 2) under ``"other"``.  The CSV has one column per
+``delta_i`` up to the largest genus in the rows (empty where ``i > g//2``).
+
+Examples
+--------
+>>> from covertree.sweep.tasks import SweepSpec, plan_sweep, compute_task
+>>> from covertree.sweep.report import sweep_report
+>>> plan = plan_sweep(SweepSpec((2,), (1,), (2,)))
+>>> report = sweep_report(plan, [compute_task(t) for t in plan.tasks])
+>>> print(sweep_to_csv(report))
+genus,target_genus,degree,profiles,base,codim,orbit_size,n_covers,total_weight,hurwitz_number,identity,delta_0,delta_1,other
+2,1,2,2;2,"g1{1,2}",0,1,4,2,2,true,0,0,2
+2,1,2,2;2,"g0{1,2} | 0-0",1,1,3,2,2,true,1,0,1
+2,1,2,2;2,"g0{1,2}, g1 | 0-1",1,1,4,2,2,true,3/2,1/2,0
+<BLANKLINE>
+>>> sweep_from_json(sweep_to_json(report)) == report
+True
+>>> summary_line(report)
+'1 problem (0 skipped), 3 strata, 11 covers, 0 identity failures'
+"""
+
+from __future__ import annotations
+
+import csv
+import io
+import json
+from fractions import Fraction
+
+from covertree import MODEL_VERSION
+from covertree.errors import InputError
+from covertree.export.catalogue import _math
+from covertree.export.rational import latex_rational, rational_str
+from covertree.hurwitz.problem import HurwitzProblem
+from covertree.sweep.report import Shard, SweepReport
+from covertree.sweep.tasks import Skipped, StratumSummary, SweepSpec, divisor_names
+from covertree.symmetric.partitions import Partition
+
+__all__ = ["sweep_to_dict", "sweep_to_json", "sweep_to_csv", "sweep_to_latex", "sweep_from_json",
+           "summary_line", "landing_columns", "ROW_COLUMNS"]
+
+#: The CSV columns before the landing columns (stable: scripts rely on them).
+ROW_COLUMNS = ("genus", "target_genus", "degree", "profiles", "base", "codim", "orbit_size",
+               "n_covers", "total_weight", "hurwitz_number", "identity")
+
+
+def row_to_dict(row: StratumSummary) -> dict:
+    """The ``ROW`` object of the JSON shape."""
+    p = row.problem
+    return {
+        "genus": p.genus, "target_genus": p.target_genus, "degree": p.degree,
+        "profiles": [list(mu) for mu in p.profiles], "base": row.stratum, "codim": row.codim,
+        "orbit_size": row.orbit_size, "n_covers": row.n_covers,
+        "total_weight": rational_str(row.total_weight), "hurwitz_number": rational_str(row.hurwitz_number),
+        "identity": row.identity_holds, "landing": {name: rational_str(w) for name, w in row.landing},
+    }
+
+
+def sweep_to_dict(report: SweepReport) -> dict:
+    """The whole JSON document as a dict."""
+    doc: dict = {"model_version": MODEL_VERSION}
+    if report.spec is not None:
+        doc["sweep"] = report.spec.to_dict()
+    if report.shard is not None:
+        s = report.shard
+        doc["shard"] = {"index": s.index, "count": s.count, "tasks": s.tasks}
+        doc["task_indices"] = list(s.task_indices)
+    doc["problems"] = [p.to_dict() for p in report.problems]
+    doc["skipped"] = [s.to_dict() for s in report.skipped]
+    doc["strata"] = [row_to_dict(r) for r in report.rows]
+    doc["summary"] = report.summary()
+    return doc
+
+
+def sweep_to_json(report: SweepReport) -> str:
+    """The JSON document (indented, keys in a fixed order)."""
+    return json.dumps(sweep_to_dict(report), indent=1)
+
+
+def landing_columns(report: SweepReport) -> list[str]:
+    """``delta_0 .. delta_M`` (``M`` from the largest source genus), then ``other``."""
+    top = max((r.problem.genus for r in report.rows), default=0)
+    return [*divisor_names(top), "other"]
+
+
+def _csv_row(row: StratumSummary, columns: list[str]) -> list:
+    d = row_to_dict(row)
+    head = [d[k] for k in ROW_COLUMNS]
+    head[3] = ";".join(",".join(map(str, mu)) for mu in d["profiles"])
+    head[10] = "true" if d["identity"] else "false"
+    return head + [d["landing"].get(name, "") for name in columns]
+
+
+def sweep_to_csv(report: SweepReport) -> str:
+    """One row per (problem, stratum), with a header row."""
+    buffer = io.StringIO()
+    writer = csv.writer(buffer, lineterminator="\n")
+    columns = landing_columns(report)
+    writer.writerow([*ROW_COLUMNS, *columns])
+    for row in report.rows:
+        writer.writerow(_csv_row(row, columns))
+    return buffer.getvalue()
+
+
+def summary_line(report: SweepReport) -> str:
+    """``"P problems (S skipped), T strata, C covers, F identity failures"``."""
+    s = report.summary()
+    plural = "" if s["problems"] == 1 else "s"
+    return (f"{s['problems']} problem{plural} ({s['skipped']} skipped), {s['strata']} strata, "
+            f"{s['covers']} covers, {s['failures']} identity failures")
+
+
+def _latex_row(row: StratumSummary, columns: list[str]) -> str:
+    p, landing = row.problem, dict(row.landing)
+    cells = [str(p.genus), str(p.target_genus), str(p.degree),
+             "$" + ";".join(",".join(map(str, mu)) for mu in p.profiles) + "$" if p.profiles else "--",
+             _math(row.stratum), str(row.orbit_size), str(row.n_covers),
+             f"${latex_rational(row.total_weight)}$", f"${latex_rational(row.hurwitz_number)}$",
+             "holds" if row.identity_holds else "FAILS"]
+    cells += [f"${latex_rational(landing[c])}$" if c in landing else "" for c in columns]
+    return " & ".join(cells) + r" \\"
+
+
+def sweep_to_latex(report: SweepReport) -> str:
+    r"""A booktabs ``longtable``, one line per row, then the summary line."""
+    columns = landing_columns(report)
+    names = [r"$\delta_{" + c.split("_")[1] + "}$" if c != "other" else "other" for c in columns]
+    head = [r"$g$", r"$h$", r"$d$", "profiles", "base", "orbit", "covers", "total", "$H$", "identity"]
+    lines = [r"\begin{longtable}{" + "rrrll" + "r" * (5 + len(columns)) + "}", r"\toprule",
+             " & ".join(head + names) + r" \\", r"\midrule", r"\endhead"]
+    lines += [_latex_row(row, columns) for row in report.rows]
+    lines += [r"\bottomrule", r"\end{longtable}", "", summary_line(report) + "."]
+    return "\n".join(lines)
+
+
+def sweep_from_json(text: str, name: str = "input") -> SweepReport:
+    """Read a document of :func:`sweep_to_json` back (for merging shards).
+
+    Raises
+    ------
+    InputError
+        If ``text`` is not such a document or has another model version.
+    """
+    try:
+        doc = json.loads(text)
+    except json.JSONDecodeError as error:
+        raise InputError(f"{name} is not JSON ({error})") from None
+    if not isinstance(doc, dict) or "strata" not in doc:
+        raise InputError(f"{name} is not a covertree sweep JSON document")
+    if doc.get("model_version") != MODEL_VERSION:
+        raise InputError(f"{name} was written with model version {doc.get('model_version')}; "
+                         f"this covertree uses model version {MODEL_VERSION}")
+    try:
+        return _report(doc)
+    except (KeyError, TypeError, ValueError, AttributeError) as error:
+        if isinstance(error, InputError):
+            raise InputError(f"{name}: {error}") from None
+        raise InputError(f"{name} is not a covertree sweep JSON document "
+                         f"(missing or malformed {error})") from None
+
+
+def _problem(d: dict) -> HurwitzProblem:
+    return HurwitzProblem(d["genus"], d["target_genus"], d["degree"],
+                          tuple(Partition(mu) for mu in d["profiles"]))
+
+
+def _row(d: dict) -> StratumSummary:
+    landing = tuple((k, Fraction(v)) for k, v in d["landing"].items())
+    return StratumSummary(_problem(d), d["base"], d["codim"], d["orbit_size"], d["n_covers"],
+                          Fraction(d["hurwitz_number"]), landing)
+
+
+def _report(doc: dict) -> SweepReport:
+    spec = SweepSpec.from_dict(doc["sweep"]) if "sweep" in doc else None
+    shard = None
+    if "shard" in doc:
+        s = doc["shard"]
+        shard = Shard(s["index"], s["count"], s["tasks"], tuple(doc["task_indices"]))
+    skipped = tuple(Skipped(s["genus"], s["target_genus"], s["degree"], s["reason"]) for s in doc["skipped"])
+    return SweepReport(spec, tuple(_problem(p) for p in doc["problems"]), skipped,
+                       tuple(_row(r) for r in doc["strata"]), shard)
