@@ -82,21 +82,22 @@ def _tuple_count_hurwitz(d, types):
     return Fraction(count, factorial(d))
 
 
-@pytest.mark.xfail(strict=True, reason=(
-    "BUG in covertree.monodromy.pieces.connected_pieces at degree 5: "
-    "connected_pieces(5, 0, [{5: 1}] * 3) returns 1 piece, but there are 4 classes of "
-    "triples of 5-cycles with product 1 ((a, a, a^3), (a, a^2, a^2), (a, a^3, a) with "
-    "centraliser of order 5, and one with trivial centraliser); the catalogue misses covers"))
+# Regression: an earlier connected_pieces missed local covers here (for instance
+# connected_pieces(5, 0, [{5: 1}] * 3) gave 1 of the 4 classes of triples of
+# 5-cycles with product 1, and [(4), (4), (4), (2,1,1)] gave 3 of 4).
 @pytest.mark.parametrize("types", [
     ((5,), (5,), (5,)),
     ((5,), (5,), (2, 1, 1, 1), (2, 1, 1, 1)),
     ((5,), (4, 1), (4, 1)),
+    ((4,), (4,), (4,), (2, 1, 1)),
+    ((3, 1), (3, 1), (4,), (2, 1, 1)),
 ], ids=str)
-def test_degree_five_smooth_stratum(types):
+def test_smooth_stratum_against_tuple_count(types):
     # a d-cycle among the profiles: every tuple is transitive
-    problem = HurwitzProblem.build(5, 0, profiles=types)
-    expected = _tuple_count_hurwitz(5, types)
-    assert connected_hurwitz(5, 0, types) == expected  # the character formula is right
+    d = sum(types[0])
+    problem = HurwitzProblem.build(d, 0, profiles=types)
+    expected = _tuple_count_hurwitz(d, types)
+    assert connected_hurwitz(d, 0, types) == expected  # the character formula is right
     cat = build_catalogue(problem, max_codim=0)
     assert cat.strata[0].total_weight == expected
 
