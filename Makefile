@@ -10,7 +10,7 @@ $(BIN)/python:
 
 $(STAMP): $(BIN)/python pyproject.toml
 	$(BIN)/python -m pip install --quiet --upgrade pip
-	$(BIN)/python -m pip install --quiet -e '.[test,draw]'
+	$(BIN)/python -m pip install --quiet -e '.[test,draw,dask]'
 	touch $(STAMP)
 
 demo: $(STAMP)

@@ -17,7 +17,7 @@ import logging
 from collections.abc import Iterator, Sequence
 
 from covertree.errors import InputError
-from covertree.sweep.tasks import StratumSummary, Task, compute_task
+from covertree.sweep.tasks import StratumSummary, Task, compute_task, largest_first
 
 __all__ = ["DaskBackend", "CONNECT_TIMEOUT"]
 
@@ -78,9 +78,10 @@ class DaskBackend:
 
     def run(self, tasks: Sequence[Task]) -> Iterator[tuple[Task, StratumSummary]]:
         """Yield ``(task, summary)`` as the cluster finishes them (any order)."""
-        futures = {self._client.submit(compute_task, task, pure=False): task for task in tasks}
+        futures = {self._client.submit(compute_task, task, pure=False, priority=-rank): task
+                   for rank, task in enumerate(sorted(tasks, key=largest_first))}
         try:
-            for future in self._distributed.as_completed(list(futures)):
+            for future in self._distributed.as_completed(list(futures), loop=self._client.loop):
                 yield futures[future], future.result()
         finally:
             self._client.cancel(list(futures))

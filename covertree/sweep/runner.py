@@ -26,7 +26,7 @@ from dataclasses import dataclass
 
 from covertree.errors import InputError
 from covertree.sweep.store import ResultStore
-from covertree.sweep.tasks import StratumSummary, Task, compute_task
+from covertree.sweep.tasks import StratumSummary, Task, compute_task, largest_first
 
 __all__ = ["SerialBackend", "ProcessBackend", "RunOutcome", "run_tasks"]
 
@@ -80,9 +80,11 @@ class ProcessBackend:
         return False
 
     def run(self, tasks: Sequence[Task]) -> Iterator[tuple[Task, StratumSummary]]:
-        """Yield ``(task, summary)`` as workers finish (any order)."""
+        """Yield ``(task, summary)`` as workers finish (any order; the
+        probably slowest tasks are handed out first)."""
         by_index = {task.index: task for task in tasks}
-        for index, summary in self._pool.imap_unordered(_indexed, tasks, chunksize=1):
+        ordered = sorted(tasks, key=largest_first)
+        for index, summary in self._pool.imap_unordered(_indexed, ordered, chunksize=1):
             yield by_index[index], summary
 
 

@@ -140,8 +140,8 @@ class ResultStore:
     def lookup(self, tasks: Sequence[Task]) -> dict[int, StratumSummary]:
         """The stored results among ``tasks``, by task index (no write).
 
-        The orbit size and the position come from the task (they are
-        properties of the plan); the tallies from the store.
+        A task matches a stored row with the same problem, stratum notation,
+        grouping (orbits or labelled strata) and model version.
         """
         found = {}
         query = f"SELECT * FROM results WHERE {' AND '.join(k + ' = ?' for k in _KEY)}"

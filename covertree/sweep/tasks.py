@@ -51,7 +51,7 @@ from covertree.symmetric.partitions import Partition
 
 __all__ = [
     "SweepSpec", "Skipped", "Task", "Plan", "StratumSummary", "plan_sweep", "compute_task",
-    "divisor_names", "problem_order", "shard_tasks", "parse_shard",
+    "divisor_names", "largest_first", "problem_order", "shard_tasks", "parse_shard",
 ]
 
 #: The name of the landing column that collects every stable source which is
@@ -250,6 +250,17 @@ def shard_tasks(tasks: Sequence[Task], index: int, count: int) -> tuple[Task, ..
     [1, 5]
     """
     return tuple(t for t in tasks if t.index % count == index - 1)
+
+
+def largest_first(task: Task) -> tuple:
+    """Sort key putting the probably slowest tasks first (degree plus number of
+    branch points, descending), so that a pool does not end on one long task.
+
+    >>> plan = plan_sweep(SweepSpec((2,), (1,), (2, 3)))
+    >>> [t.index for t in sorted(plan.tasks, key=largest_first)]
+    [3, 4, 5, 0, 1, 2]
+    """
+    return (-(task.problem.degree + task.problem.points), task.index)
 
 
 def divisor_names(genus: int) -> list[str]:

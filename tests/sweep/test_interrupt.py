@@ -1,0 +1,81 @@
+"""Interrupted sweeps (Ctrl-C, a killed process) resume from the store: the
+final output equals an uninterrupted run, the store stays sound, and finished
+tasks are not recomputed."""
+
+import signal
+import sqlite3
+import time
+
+import pytest
+
+from tests.sweep.helpers import invoke, spawn
+
+# 15 tasks: genus 3 over an elliptic curve, degrees 2..4 (5 strata each); the
+# degree-4 tasks take seconds, so there is time to interrupt after 11 of them.
+ARGS = ["sweep", "-g", "3", "-t", "1", "-d", "2..4", "-f", "json"]
+TASKS = 15
+AFTER = 11
+
+
+@pytest.fixture(scope="module")
+def reference() -> str:
+    result = invoke(*ARGS, "-q")
+    assert result.exit_code == 0
+    return result.stdout
+
+
+def stored(path) -> int:
+    if not path.exists():
+        return 0
+    conn = sqlite3.connect(f"file:{path}?mode=ro", uri=True, timeout=5)
+    try:
+        return conn.execute("SELECT COUNT(*) FROM results").fetchone()[0]
+    except sqlite3.Error:
+        return 0
+    finally:
+        conn.close()
+
+
+def interrupt(path, sig, *extra) -> int:
+    """Start a sweep writing to ``path``, send ``sig`` once AFTER tasks are
+    committed, and return how many tasks the store then holds."""
+    # a child of a background shell would inherit SIGINT ignored: restore it
+    restore = (lambda: signal.signal(signal.SIGINT, signal.SIG_DFL)) if sig == signal.SIGINT else None
+    child = spawn(*ARGS, "--store", str(path), *extra, preexec_fn=restore)
+    deadline = time.monotonic() + 120
+    while stored(path) < AFTER:
+        assert child.poll() is None, child.communicate()
+        assert time.monotonic() < deadline
+        time.sleep(0.01)
+    child.send_signal(sig)
+    started = time.monotonic()
+    child.communicate(timeout=60)
+    assert child.returncode != 0
+    assert time.monotonic() - started < 10  # stopped at once, not after the remaining tasks
+    return stored(path)
+
+
+def check_resumed(path, kept: int, reference: str) -> None:
+    assert AFTER <= kept < TASKS
+    with sqlite3.connect(path) as conn:
+        assert conn.execute("PRAGMA integrity_check").fetchone()[0] == "ok"
+    conn.close()
+    rerun = invoke(*ARGS, "--store", str(path), "-j", "2")
+    assert rerun.exit_code == 0, rerun.stderr
+    assert rerun.stdout == reference
+    assert f"{TASKS} tasks: {TASKS - kept} computed, {kept} found in the store" in rerun.stderr
+
+
+def test_ctrl_c_on_a_process_pool(tmp_path, reference):
+    path = tmp_path / "results.sqlite"
+    output = tmp_path / "out.json"
+    kept = interrupt(path, signal.SIGINT, "-j", "2", "-o", str(output))
+    assert not output.exists()  # no partial output file
+    assert [p.name for p in tmp_path.iterdir() if p.name.startswith(".covertree-")] == []
+    check_resumed(path, kept, reference)
+
+
+def test_killed_serial_run(tmp_path, reference):
+    path = tmp_path / "results.sqlite"
+    kept = interrupt(path, signal.SIGKILL)
+    check_resumed(path, kept, reference)
