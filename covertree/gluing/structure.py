@@ -31,6 +31,7 @@ multiplicity of the cover.
 from __future__ import annotations
 
 from dataclasses import dataclass
+from functools import lru_cache
 
 from covertree.monodromy.pieces import Piece
 from covertree.symmetric.permutations import cycles
@@ -80,8 +81,13 @@ def _start_pieces(glued: Glued) -> list[int]:
     return [i for i in cands if glued.pieces[i].gens == least]
 
 
-def _local_order(piece: Piece, entry: int) -> list[int]:
-    """Sheets of the piece in breadth-first order from ``entry`` (all gens)."""
+@lru_cache(maxsize=65536)
+def _view(piece: Piece, halves: tuple[int, ...], entry: int) -> tuple[tuple, dict, tuple]:
+    """Piece ``piece`` labelled breadth-first from ``entry`` (all gens):
+    ``(head, least, scan)`` with ``head`` the degree and relabelled
+    permutations, ``least[(p, c)]`` the least label on cycle ``c`` of ``s_p``,
+    and ``scan`` the ports ``(p, c)`` in scan order (special point, least label).
+    Depends on the piece only, so it is shared by all structures using it."""
     order = [entry]
     seen = {entry}
     for x in order:
@@ -90,18 +96,26 @@ def _local_order(piece: Piece, entry: int) -> list[int]:
             if y not in seen:
                 seen.add(y)
                 order.append(y)
-    return order
+    pos = {x: n for n, x in enumerate(order)}
+    head = (piece.degree,) + tuple(pos[perm[x]] for perm in piece.gens for x in order)
+    least, scan = {}, []
+    for p in halves:
+        cyc = cycles(piece.special(p))
+        mins = [min(pos[x] for x in c) for c in cyc]
+        least.update({(p, c): m for c, m in enumerate(mins)})
+        scan.extend((p, c) for c in sorted(range(len(cyc)), key=mins.__getitem__))
+    return head, least, tuple(scan)
 
 
 class _Walk:
     """Depth-first search over the entry choices of one start piece."""
 
     def __init__(self, glued: Glued, queue: list[int], cands: list[list[int]], orders: list) -> None:
-        self.g, self.queue, self.cands, self.orders = glued, queue, cands, orders
-        self.pos = [None] * len(glued.pieces)
+        self.g, self.queue, self.cands, self.views = glued, queue, cands, orders
+        self.halves = [tuple(h) for h in glued.halves]
 
     def run(self, best: list) -> None:
-        t = len(self.orders)
+        t = len(self.views)
         if t == len(self.g.pieces):
             self._leaf(best)
             return
@@ -109,47 +123,36 @@ class _Walk:
             raise AssertionError("canonical_code needs a connected structure")
         j = self.queue[t]
         for entry in self.cands[t]:
-            order = _local_order(self.g.pieces[j], entry)
-            self.orders.append(order)
-            self.pos[j] = {x: n for n, x in enumerate(order)}
-            added = self._reach(j)
+            view = _view(self.g.pieces[j], self.halves[j], entry)
+            self.views.append(view)
+            added = self._reach(j, view[2])
             self.run(best)
             del self.queue[len(self.queue) - added:]
             del self.cands[len(self.cands) - added:]
-            self.orders.pop()
-            self.pos[j] = None
+            self.views.pop()
 
-    def _ports(self, j: int) -> list[Port]:
-        """Ports of piece ``j`` in scan order (special point, least label)."""
-        pos, out = self.pos[j], []
-        for p in self.g.halves[j]:
-            cyc = self.g.port_cycles[j][p]
-            idx = sorted(range(len(cyc)), key=lambda c: min(pos[x] for x in cyc[c]))
-            out.extend((j, p, c) for c in idx)
-        return out
-
-    def _reach(self, j: int) -> int:
+    def _reach(self, j: int, scan: tuple) -> int:
         """Append the pieces first reached from piece ``j``; return how many."""
         added = 0
-        for port in self._ports(j):
-            j2, q, c2 = self.g.partner[port]
-            if j2 not in self.queue:
-                self.queue.append(j2)
+        partner, queue = self.g.partner, self.queue
+        for p, c in scan:
+            j2, q, c2 = partner[(j, p, c)]
+            if j2 not in queue:
+                queue.append(j2)
                 self.cands.append(list(self.g.port_cycles[j2][q][c2]))
                 added += 1
         return added
 
     def _leaf(self, best: list) -> None:
         rank = {j: t for t, j in enumerate(self.queue)}
+        partner, vertex = self.g.partner, self.g.vertex
         code: list[int] = []
-        for j, order in zip(self.queue, self.orders):
-            piece, pos = self.g.pieces[j], self.pos[j]
-            code += (self.g.vertex[j], piece.degree)
-            for perm in piece.gens:
-                code.extend(pos[perm[x]] for x in order)
-            for port in self._ports(j):
-                j2, q, c2 = self.g.partner[port]
-                code += (rank[j2], q, min(self.pos[j2][x] for x in self.g.port_cycles[j2][q][c2]))
+        for j, (head, _least, scan) in zip(self.queue, self.views):
+            code.append(vertex[j])
+            code += head
+            for p, c in scan:
+                j2, q, c2 = partner[(j, p, c)]
+                code += (rank[j2], q, self.views[rank[j2]][1][(q, c2)])
         code_t = tuple(code)
         if best[0] is None or code_t < best[0]:
             best[0], best[1] = code_t, 1

@@ -243,8 +243,10 @@ class _Table:
     """Partial permutations ``img``/``pre`` (``-1`` undefined) being grown, with
     a trail for undoing.
 
-    At a prescribed generator it counts the closed cycles by length, the cycles
-    of length at least 2 still allowed (``spare``) and the open chains; it forces
+    At a prescribed generator it counts the closed cycles by length, the room
+    left for open chains (``stats[g][0]``: a cycle of length ``m`` still allowed
+    can hold at most ``m // 2`` disjoint chains of two or more sheets, which may
+    merge into it later) and the open chains (``stats[g][1]``); it forces
     the images this leaves no choice about: a chain as long as the longest
     allowed cycle closes, and once no chain is open and no longer cycle is
     allowed every remaining sheet is fixed.  ``words[g]`` lists the rotations of
@@ -264,7 +266,8 @@ class _Table:
         self.longest = [k if c is None else max((m for m in range(k + 1) if c[m] > 0), default=0)
                         for c in self.caps]
         self.closed = [[0] * (k + 1) for _ in range(r)]
-        self.stats = [[0 if c is None else sum(c[2:]), 0] for c in self.caps]
+        self.stats = [[0 if c is None else sum(c[m] * (m // 2) for m in range(2, k + 1)), 0]
+                      for c in self.caps]
         self.trail: list[tuple[int, int, int, int]] = []
         self.todo: list[tuple[int, int]] = []
         self.words = _rotations(relator, r, self.img, self.pre)
@@ -313,7 +316,7 @@ class _Table:
             return False
         closed[length] += 1
         if length > 1:
-            st[0] -= 1
+            st[0] -= length // 2
             st[1] -= 1
         self.img[g][x], self.pre[g][y] = y, x
         self.trail.append((g, x, length, 0))
@@ -335,7 +338,7 @@ class _Table:
             if length:
                 closed[g][length] -= 1
                 if length > 1:
-                    stats[g][0] += 1
+                    stats[g][0] += length // 2
                     stats[g][1] += 1
             else:
                 stats[g][1] -= grown

@@ -192,3 +192,33 @@ def test_published_subgroups_of_genus_two_surface_group():
     # index n in the fundamental group of a closed orientable genus-2 surface).
     assert _weight(connected_pieces(2, 2, [{1: 2}]), [(1, 1)]) == Fraction(15, 2)
     assert _weight(connected_pieces(3, 2, [{1: 3}]), [(1, 1, 1)]) == Fraction(220, 3)
+
+
+# Regression: two open chains of a prescribed generator may still merge into one
+# long cycle, so the room for open chains is m // 2 per allowed m-cycle, not one
+# per cycle.  Triples of 5-cycles with product 1 in S_5: (a, a, a^3), (a, a^2, a^2),
+# (a, a^3, a) with centraliser Z/5 and one class with trivial centraliser (by
+# hand: 24 * 24 pairs of 5-cycles, the 4 pairs (a, a^k) per cyclic group give the
+# classes with centraliser Z/5, and H = 3/5 + 1 = 8/5 is the Frobenius count).
+@pytest.mark.parametrize("k, handles, allowed", [
+    (5, 0, [{5: 1}] * 3),
+    (5, 0, [{5: 1}, {5: 1}, None]),
+    (4, 0, [{4: 1}] * 3 + [{2: 1, 1: 2}]),
+    (4, 0, [{3: 1, 1: 1}, {3: 1, 1: 1}, {4: 1}, {2: 1, 1: 2}]),
+    (6, 0, [{6: 1}, {3: 2}, None]),
+    (6, 0, [{4: 1, 2: 1}, {2: 3}, {6: 1}]),
+])
+def test_long_cycles_match_reference(k, handles, allowed):
+    new = connected_pieces(k, handles, allowed)
+    old = reference_pieces.connected_pieces(k, handles, allowed)
+    assert sorted(p.centraliser_order for p in new) == sorted(p.centraliser_order for p in old)
+    assert len(new) == len(old)
+
+
+def test_triples_of_five_cycles_weight():
+    # Frobenius' formula for three points of type (5) in degree 5: H = 8/5
+    # (sum over the characters of S_5; common knowledge, recomputed by covertree.count)
+    from covertree.hurwitz.numbers import connected_hurwitz
+
+    pieces = connected_pieces(5, 0, [{5: 1}] * 3)
+    assert sum(Fraction(1, p.centraliser_order) for p in pieces) == connected_hurwitz(5, 0, [(5,)] * 3)
