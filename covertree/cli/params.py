@@ -4,6 +4,7 @@ from __future__ import annotations
 
 import os
 import re
+import sys
 import tempfile
 
 import click
@@ -125,7 +126,7 @@ class AtomicOutput:
 
     def __enter__(self):
         if self.output is None:
-            return click.get_text_stream("stdout")
+            return sys.stdout
         directory = os.path.dirname(os.path.abspath(self.output))
         fd, self.tmp = tempfile.mkstemp(dir=directory, prefix=".covertree-", suffix=".tmp")
         self.handle = os.fdopen(fd, "w", encoding="utf-8")

@@ -124,9 +124,11 @@ class HurwitzProblem:
             raise ProblemError(f"genus {genus} is negative; allowed: 0, 1, 2, ...")
         missing = 2 * genus - 2 - degree * (2 * target_genus - 2) - branching(degree, given)
         if missing < 0:
+            allowed = 2 * genus - 2 - degree * (2 * target_genus - 2)
             raise ProblemError(
                 f"genus {genus} is too small for degree {degree}, target genus {target_genus} "
-                f"and profiles {_show(given)}: Riemann-Hurwitz needs {missing} more simple points"
+                f"and profiles {_show(given)}: their total ramification "
+                f"{branching(degree, given)} exceeds the {allowed} that Riemann-Hurwitz allows"
             )
         if missing and degree < 2:
             raise ProblemError(f"genus {genus} needs branching, impossible in degree 1")
