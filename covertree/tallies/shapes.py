@@ -130,33 +130,36 @@ def local_multisets(degree: int, vertex_genus: int, leg_profiles: tuple[Profile,
     ``piece_shapes(degree, vertex_genus, leg_profiles, n_halves, max_genus)``,
     in lexicographic order."""
     shapes = piece_shapes(degree, vertex_genus, leg_profiles, n_halves, max_genus)
-    need = [Counter(mu) for mu in leg_profiles]
+    # the legs' cycle counts as one flat vector: (leg, length) -> slot
+    slots = sorted({(j, length) for j, mu in enumerate(leg_profiles) for length in mu})
+    where = {s: n for n, s in enumerate(slots)}
+    need = [0] * len(slots)
+    for j, mu in enumerate(leg_profiles):
+        for length, m in Counter(mu).items():
+            need[where[(j, length)]] = m
+    uses = [tuple((where[(j, length)], m) for j, nu in enumerate(s.legs) for length, m in Counter(nu).items())
+            for s in shapes]
     out: list[tuple[int, ...]] = []
-    _grow(shapes, 0, degree, max_genus, need, [], out)
+    _grow(shapes, uses, 0, degree, max_genus, need, [], out)
     return out
 
 
-def _grow(shapes: Sequence[Shape], start: int, left: int, genus_left: int, need: list[Counter],
-          acc: list[int], out: list) -> None:
+def _grow(shapes: Sequence[Shape], uses: Sequence[tuple], start: int, left: int, genus_left: int,
+          need: list[int], acc: list[int], out: list) -> None:
+    """Non-decreasing choices from ``start`` on (shapes are sorted by degree)."""
     if left == 0:
         out.append(tuple(acc))
         return
     for idx in range(start, len(shapes)):
         s = shapes[idx]
-        if s.degree > left or s.genus > genus_left or not _fits(s.legs, need):
+        if s.degree > left:
+            break
+        if s.genus > genus_left or any(need[slot] < m for slot, m in uses[idx]):
             continue
-        for counter, nu in zip(need, s.legs):
-            counter.subtract(nu)
+        for slot, m in uses[idx]:
+            need[slot] -= m
         acc.append(idx)
-        _grow(shapes, idx, left - s.degree, genus_left - s.genus, need, acc, out)
+        _grow(shapes, uses, idx, left - s.degree, genus_left - s.genus, need, acc, out)
         acc.pop()
-        for counter, nu in zip(need, s.legs):
-            counter.update(nu)
-
-
-def _fits(legs: tuple[Profile, ...], need: list[Counter]) -> bool:
-    for counter, nu in zip(need, legs):
-        for length, m in Counter(nu).items():
-            if counter[length] < m:
-                return False
-    return True
+        for slot, m in uses[idx]:
+            need[slot] += m

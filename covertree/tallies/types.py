@@ -117,7 +117,8 @@ from math import factorial, lcm, prod
 
 from covertree.catalogue.catalogue import problem_hurwitz, select_strata
 from covertree.catalogue.covers import make_graph
-from covertree.errors import IdentityError
+from covertree.errors import GraphError, IdentityError
+from covertree.graphs.canonical import _certify
 from covertree.graphs.dual_graph import DualGraph, StableGraph
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.monodromy.local import special_points
@@ -126,7 +127,7 @@ from covertree.strata.base import BaseStratum
 from covertree.tallies.gluing import count_matchings
 from covertree.tallies.shapes import Shape, local_multisets, piece_shapes
 
-__all__ = ["TallyEntry", "TypeTally", "TallyCatalogue", "tally_stratum", "tally_catalogue", "iter_types"]
+__all__ = ["TallyEntry", "TypeTally", "TallyCatalogue", "CoverType", "tally_stratum", "tally_catalogue", "iter_types"]
 
 Profile = tuple[int, ...]
 
@@ -369,6 +370,16 @@ def _choice_entries(base: StableGraph, data: list[_Vertex], choice, genus: int) 
     return [TallyEntry(profiles, genera, key, coeff * n) for key, n in sorted(counts.items())]
 
 
+def _check_base(problem: HurwitzProblem, graph: StableGraph) -> None:
+    """The base must be a stratum of ``Mbar_{h,b}`` with legs ``1..b``."""
+    legs = sorted(j for x in graph.legs for j in x)
+    if graph.genus != problem.target_genus or legs != list(range(1, problem.points + 1)):
+        raise GraphError(
+            f"stratum {graph.notation!r} is not a stratum of Mbar_{{{problem.target_genus},{problem.points}}} "
+            f"(genus {problem.target_genus}, legs 1..{problem.points})"
+        )
+
+
 def tally_stratum(problem: HurwitzProblem, base: BaseStratum) -> TypeTally:
     """The tallies over one base stratum, summed over types.
 
@@ -382,13 +393,107 @@ def tally_stratum(problem: HurwitzProblem, base: BaseStratum) -> TypeTally:
     >>> t = tally_stratum(problem, BaseStratum(parse_graph("g0{1,2,3}, g0{4,5,6} | 0-1"), 10))
     >>> str(t.total_weight), [(g.notation, str(w)) for g, w in t.by_source()]
     ('1/2', [('g1, g1 | 0-1', '1/2')])
+
+    Raises
+    ------
+    GraphError
+        If ``base`` is not a stratum of the target with legs ``1..b``.
+    IdentityError
+        If Riemann-Hurwitz fails for a list of pieces (a bug).
     """
+    _check_base(problem, base.graph)
     profiles = [tuple(p) for p in problem.profiles]
     data = _vertex_data(base.graph, problem.degree, problem.genus, profiles)
     entries: list[TallyEntry] = []
     for choice in _choices(base.graph, data, problem.genus):
         entries.extend(_choice_entries(base.graph, data, choice, problem.genus))
     return TypeTally(base, tuple(entries), problem_hurwitz(problem))
+
+
+@dataclass(frozen=True)
+class CoverType:
+    """One combinatorial type up to isomorphism (module docstring).
+
+    Attributes
+    ----------
+    edge_profiles : tuple of profiles
+    vertex : tuple of int
+        Base vertex of each piece.
+    shapes : tuple of Shape
+    edges : tuple of (int, int, int, int)
+        Matched pairs up to relabelling: ``(i, j, k, l)`` as in :class:`TallyEntry`.
+    automorphisms : int
+        ``|Aut T|``: piece renumberings keeping the matching (vertex
+        automorphisms of a coloured graph) times ``prod M!`` over the numbers
+        ``M`` of pairs with equal ``(i, j, k, l)`` (relabellings of points).
+    weight : Fraction
+        ``mult * prod H_lab / |Aut T|``.
+    """
+
+    edge_profiles: tuple[Profile, ...]
+    vertex: tuple[int, ...]
+    shapes: tuple[Shape, ...]
+    edges: tuple[tuple[int, int, int, int], ...]
+    automorphisms: int
+    weight: Fraction
+
+
+def _type_code(classes: Sequence[int], edges: Sequence[tuple[int, int, int, int]]) -> tuple[tuple, int, int]:
+    """Canonical code, vertex automorphisms and ``prod M!`` of a type, via the
+    coloured graph with a vertex per piece (colour: its class) and per distinct
+    pair ``(i, j, k, l)`` (colour: ``k, l, M``), joined to ``i`` once and to
+    ``j`` twice (three times when ``i == j``)."""
+    counts: dict[tuple, int] = {}
+    for e in edges:
+        counts[e] = counts.get(e, 0) + 1
+    colours = sorted({(k, l, m) for (_, _, k, l), m in counts.items()})
+    offset = max(classes) + 1
+    legs = [(c,) for c in classes]
+    graph_edges = []
+    for (i, j, k, l), m in sorted(counts.items()):
+        x = len(legs)
+        legs.append((offset + colours.index((k, l, m)),))
+        graph_edges += [(x, i), (x, j), (x, j)]
+    key, _, aut_v = _certify((0,) * len(legs), tuple(graph_edges), tuple(legs))
+    return key, aut_v, prod(factorial(m) for m in counts.values())
+
+
+def iter_types(problem: HurwitzProblem, base: BaseStratum) -> Iterator[CoverType]:
+    """Every type with connected source over a fixed curve of type ``base``,
+    each isomorphism class once, with ``|Aut T|`` and its weight (slower than
+    :func:`tally_stratum`, which needs no automorphism groups).
+
+    Examples
+    --------
+    The hand example of the module docstring:
+
+    >>> from covertree.graphs.notation import parse_graph
+    >>> problem = HurwitzProblem.build(2, 1, genus=2)
+    >>> types = list(iter_types(problem, BaseStratum(parse_graph("g0{1,2} | 0-0"), 1)))
+    >>> [(t.edge_profiles, t.shapes[0].genus, t.automorphisms, str(t.weight)) for t in types]
+    [(((1, 1),), 0, 2, '1'), (((2,),), 1, 1, '1')]
+    """
+    _check_base(problem, base.graph)
+    profiles = [tuple(p) for p in problem.profiles]
+    data = _vertex_data(base.graph, problem.degree, problem.genus, profiles)
+    for choice in _choices(base.graph, data, problem.genus):
+        vertex = tuple(v for v, m in enumerate(choice) for _ in m)
+        shapes = tuple(data[v].shapes[s] for v, m in enumerate(choice) for s in m)
+        classes = _class_ids(choice)
+        edge_profiles = _edge_profiles(base.graph, data, choice)
+        labelled = prod(s.hurwitz * prod(_aut(p) for p in s.halves) for s in shapes)
+        mult = prod(x for p in edge_profiles for x in p)
+        seen: set[tuple] = set()
+        for key in sorted(count_matchings(base.graph.edges, vertex, [s.halves for s in shapes], classes)):
+            code, aut_v, relabel = _type_code(classes, key)
+            if code not in seen:
+                seen.add(code)
+                aut = aut_v * relabel
+                yield CoverType(edge_profiles, vertex, shapes, key, aut, mult * labelled / aut)
+
+
+def _aut(profile: Profile) -> int:
+    return prod(factorial(profile.count(x)) for x in set(profile))
 
 
 def tally_catalogue(problem: HurwitzProblem, max_codim: int = 1, stratum: StableGraph | None = None,
