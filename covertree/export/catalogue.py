@@ -62,6 +62,7 @@ from covertree.catalogue.catalogue import Catalogue, StratumResult
 from covertree.catalogue.covers import Cover
 from covertree.catalogue.local_structure import LocalStructure, local_structure
 from covertree.export.graphs import latex_escape
+from covertree.export.latex import latex_document
 from covertree.export.rational import latex_rational, rational_str
 
 #: Column names of the CSV rendering (stable: scripts rely on them).
@@ -249,13 +250,4 @@ def _document(body: str, cat: Catalogue) -> str:
     p = cat.problem
     title = (f"Admissible covers of degree {p.degree}, genus {p.genus} over genus "
              f"{p.target_genus}, codimension $\\le {cat.codim}$")
-    return "\n".join([
-        r"\documentclass{article}",
-        r"\usepackage[margin=2cm,landscape]{geometry}",
-        r"\usepackage{booktabs,longtable,amsmath}",
-        r"\begin{document}",
-        r"\section*{" + title + "}",
-        body,
-        r"\end{document}",
-        "",
-    ])
+    return latex_document(body, title, ["booktabs", "longtable", "amsmath"], "margin=2cm,landscape")

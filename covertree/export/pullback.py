@@ -33,6 +33,7 @@ import json
 
 from covertree.catalogue.pullback import Pullback
 from covertree.export.catalogue import _math, problem_to_dict
+from covertree.export.latex import latex_document
 from covertree.export.rational import latex_rational, rational_str
 
 __all__ = ["pullback_to_dict", "pullback_to_json", "pullback_to_csv", "pullback_to_latex", "pullback_columns"]
@@ -108,12 +109,4 @@ def pullback_to_latex(pb: Pullback, standalone: bool = False) -> str:
     p = pb.problem
     title = (f"Pullbacks of the boundary of $\\overline{{M}}_{{{p.genus}}}$: degree {p.degree} covers "
              f"of genus {p.target_genus}, $H = {latex_rational(pb.hurwitz_number)}$")
-    return "\n".join([
-        r"\documentclass{article}",
-        r"\usepackage{booktabs,amsmath}",
-        r"\begin{document}",
-        r"\section*{" + title + "}",
-        body,
-        r"\end{document}",
-        "",
-    ])
+    return latex_document(body, title, ["booktabs", "amsmath"])

@@ -29,6 +29,7 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 
 from covertree.export.graphs import latex_escape
+from covertree.export.latex import latex_document
 
 __all__ = ["Layout", "layout", "graph_to_tikz", "cover_to_tikz", "tikz_document", "strata_tikz", "catalogue_tikz"]
 
@@ -308,18 +309,14 @@ def cover_to_tikz(cover, base_graph) -> str:
 
 def tikz_document(pictures: Sequence[str], captions: Sequence[str] | None = None, title: str | None = None) -> str:
     """A complete LaTeX document with one picture per paragraph (and its caption)."""
-    lines = [r"\documentclass{article}", r"\usepackage[margin=2cm]{geometry}", r"\usepackage{tikz}",
-             r"\begin{document}"]
-    if title:
-        lines.append(r"\section*{" + title + "}")
+    lines = []
     for i, pic in enumerate(pictures):
         lines.append(r"\noindent")
         lines.append(pic)
         if captions is not None:
             lines.append(r"\\[2pt]{\small " + captions[i] + "}")
         lines.append(r"\par\bigskip")
-    lines += [r"\end{document}", ""]
-    return "\n".join(lines)
+    return latex_document("\n".join(lines), title, ["tikz"])
 
 
 def delta_math(name: str) -> str:
