@@ -61,7 +61,7 @@ import json
 from covertree.catalogue.catalogue import Catalogue, StratumResult
 from covertree.catalogue.covers import Cover
 from covertree.catalogue.local_structure import LocalStructure, local_structure
-from covertree.export.graphs import latex_escape
+from covertree.export.graphs import notation_math
 from covertree.export.latex import latex_document
 from covertree.export.rational import latex_rational, rational_str
 
@@ -184,23 +184,6 @@ def catalogue_to_csv(cat: Catalogue) -> str:
     return buffer.getvalue()
 
 
-def _math(notation: str) -> str:
-    r"""Our graph notation in math mode: ``g0{1,2}`` -> ``g_0\{1,2\}``."""
-    body = latex_escape(notation).replace(r"\^{}", "^").replace("|", r"\mid ")
-    out, i = [], 0
-    while i < len(body):
-        if body[i] == "g" and i + 1 < len(body) and body[i + 1].isdigit():
-            j = i + 1
-            while j < len(body) and body[j].isdigit():
-                j += 1
-            out.append(f"g_{{{body[i + 1:j]}}}")
-            i = j
-        else:
-            out.append(body[i])
-            i += 1
-    return "$" + "".join(out) + "$"
-
-
 def catalogue_to_latex(cat: Catalogue, standalone: bool = False) -> str:
     """A booktabs ``longtable`` (one block per stratum), or a complete document."""
     lines = [
@@ -211,7 +194,7 @@ def catalogue_to_latex(cat: Catalogue, standalone: bool = False) -> str:
         r"\endhead",
     ]
     for s in cat.strata:
-        head = (f"\\multicolumn{{10}}{{l}}{{base {_math(s.base.graph.notation)}, codim "
+        head = (f"\\multicolumn{{10}}{{l}}{{base {notation_math(s.base.graph.notation)}, codim "
                 f"{s.base.graph.codim}, orbit {s.base.orbit_size}: total "
                 f"${latex_rational(s.total_weight)}$ vs.\\ $H = {latex_rational(s.hurwitz_number)}$"
                 f" ({'holds' if s.identity_holds else 'FAILS'})}} \\\\")
@@ -219,7 +202,7 @@ def catalogue_to_latex(cat: Catalogue, standalone: bool = False) -> str:
         for c in s.covers:
             lines.append(" & ".join([
                 "$" + ";".join(",".join(map(str, p)) for p in c.edge_profiles) + "$" if c.edge_profiles else "--",
-                _math(c.source.notation), _math(c.stable_source.notation),
+                notation_math(c.source.notation), notation_math(c.stable_source.notation),
                 f"$\\{c.stable_source_name.replace('_', '_{')}}}$" if c.stable_source_name else "",
                 str(c.automorphisms), str(c.multiplicity), f"${latex_rational(c.weight)}$",
                 *_latex_local(local_structure(c)),

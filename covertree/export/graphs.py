@@ -34,7 +34,7 @@ from collections.abc import Sequence
 
 from covertree.graphs.dual_graph import DualGraph
 
-__all__ = ["STRATA_COLUMNS", "latex_escape", "strata_csv", "strata_json", "strata_latex", "strata_rows"]
+__all__ = ["STRATA_COLUMNS", "latex_escape", "notation_math", "strata_csv", "strata_json", "strata_latex", "strata_rows"]
 
 #: Column names of the CSV rendering (and of the table of the command line).
 STRATA_COLUMNS = ("index", "codim", "vertices", "automorphisms", "notation")
@@ -116,3 +116,24 @@ def latex_escape(text: str) -> str:
         else:
             out.append(char)
     return "".join(out)
+
+
+def notation_math(notation: str) -> str:
+    r"""Our graph notation in math mode: ``g0{1,2}`` -> ``g_{0}\{1,2\}``.
+
+    >>> print(notation_math("g0{1}, g1 | 0-1"))
+    $g_{0}\{1\}, g_{1} \mid  0-1$
+    """
+    body = latex_escape(notation).replace(r"\^{}", "^").replace("|", r"\mid ")
+    out, i = [], 0
+    while i < len(body):
+        if body[i] == "g" and i + 1 < len(body) and body[i + 1].isdigit():
+            j = i + 1
+            while j < len(body) and body[j].isdigit():
+                j += 1
+            out.append(f"g_{{{body[i + 1:j]}}}")
+            i = j
+        else:
+            out.append(body[i])
+            i += 1
+    return "$" + "".join(out) + "$"

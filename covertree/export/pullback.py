@@ -32,7 +32,8 @@ import io
 import json
 
 from covertree.catalogue.pullback import Pullback
-from covertree.export.catalogue import _math, problem_to_dict
+from covertree.export.catalogue import problem_to_dict
+from covertree.export.graphs import notation_math
 from covertree.export.latex import latex_document
 from covertree.export.rational import latex_rational, rational_str
 
@@ -98,7 +99,7 @@ def pullback_to_latex(pb: Pullback, standalone: bool = False) -> str:
         r"\midrule",
     ]
     for r in pb.rows:
-        cells = [_math(r.base.graph.notation), str(r.base.orbit_size)]
+        cells = [notation_math(r.base.graph.notation), str(r.base.orbit_size)]
         cells += [f"${latex_rational(r.coefficients[d])}$" for d in pb.divisors]
         cells.append(f"${latex_rational(r.branch_total)}$")
         lines.append(" & ".join(cells) + r" \\")

@@ -49,7 +49,7 @@ from fractions import Fraction
 
 from covertree import MODEL_VERSION
 from covertree.errors import InputError
-from covertree.export.catalogue import _math
+from covertree.export.graphs import notation_math
 from covertree.export.rational import latex_rational, rational_str
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.sweep.report import Shard, SweepReport
@@ -134,7 +134,7 @@ def _latex_row(row: StratumSummary, columns: list[str]) -> str:
     p, landing = row.problem, dict(row.landing)
     cells = [str(p.genus), str(p.target_genus), str(p.degree),
              "$" + ";".join(",".join(map(str, mu)) for mu in p.profiles) + "$" if p.profiles else "--",
-             _math(row.stratum), str(row.orbit_size), str(row.n_covers),
+             notation_math(row.stratum), str(row.orbit_size), str(row.n_covers),
              f"${latex_rational(row.total_weight)}$", f"${latex_rational(row.hurwitz_number)}$",
              "holds" if row.identity_holds else "FAILS"]
     cells += [f"${latex_rational(landing[c])}$" if c in landing else "" for c in columns]
