@@ -126,40 +126,94 @@ def _shapes_with_legs(k: int, h: int, legs: tuple[Profile, ...], n_halves: int,
 
 def local_multisets(degree: int, vertex_genus: int, leg_profiles: tuple[Profile, ...],
                     n_halves: int, max_genus: int) -> list[tuple[int, ...]]:
-    """Local multisets over one vertex, as non-decreasing tuples of indices into
+    """Local multisets over one vertex, as sorted tuples of indices into
     ``piece_shapes(degree, vertex_genus, leg_profiles, n_halves, max_genus)``,
-    in lexicographic order."""
+    in lexicographic order.
+
+    Method: the cycles of length ``>= 2`` of the legs are *slots* ``(leg,
+    length)`` with a need (the multiplicity in ``mu_j``).  Once the degrees add
+    up to ``d`` and every slot is used exactly, the fixed points of the legs
+    are used exactly too (at leg ``j`` the pieces use ``d`` points in all), so
+    only slots are tracked.  A multiset splits uniquely into phases: the pieces
+    using the first slot, then those using the first slot still needed among
+    the rest, and so on, and last the pieces unramified at every leg; within a
+    phase pieces are taken in non-decreasing index.  So each multiset is
+    produced once and only shapes using the slot in hand are tried.  Slots of
+    need 1 (a simple branch point) are bits of one integer mask.
+    """
     shapes = piece_shapes(degree, vertex_genus, leg_profiles, n_halves, max_genus)
-    # the legs' cycle counts as one flat vector: (leg, length) -> slot
-    slots = sorted({(j, length) for j, mu in enumerate(leg_profiles) for length in mu})
-    where = {s: n for n, s in enumerate(slots)}
-    need = [0] * len(slots)
-    for j, mu in enumerate(leg_profiles):
-        for length, m in Counter(mu).items():
-            need[where[(j, length)]] = m
-    uses = [tuple((where[(j, length)], m) for j, nu in enumerate(s.legs) for length, m in Counter(nu).items())
-            for s in shapes]
+    plan = _SlotPlan(shapes, leg_profiles)
     out: list[tuple[int, ...]] = []
-    _grow(shapes, uses, 0, degree, max_genus, need, [], out)
-    return out
+    plan.cover(0, -1, degree, max_genus, 0, [], out)
+    return sorted(tuple(sorted(m)) for m in out)
 
 
-def _grow(shapes: Sequence[Shape], uses: Sequence[tuple], start: int, left: int, genus_left: int,
-          need: list[int], acc: list[int], out: list) -> None:
-    """Non-decreasing choices from ``start`` on (shapes are sorted by degree)."""
-    if left == 0:
-        out.append(tuple(acc))
-        return
-    for idx in range(start, len(shapes)):
-        s = shapes[idx]
-        if s.degree > left:
-            break
-        if s.genus > genus_left or any(need[slot] < m for slot, m in uses[idx]):
-            continue
-        for slot, m in uses[idx]:
-            need[slot] -= m
-        acc.append(idx)
-        _grow(shapes, uses, idx, left - s.degree, genus_left - s.genus, need, acc, out)
-        acc.pop()
-        for slot, m in uses[idx]:
-            need[slot] += m
+class _SlotPlan:
+    """The slots of one vertex and, per shape, the slots it uses."""
+
+    def __init__(self, shapes: Sequence[Shape], leg_profiles: tuple[Profile, ...]) -> None:
+        slots = sorted({(j, x) for j, mu in enumerate(leg_profiles) for x in mu if x > 1})
+        self.shapes = shapes
+        self.need = [Counter(leg_profiles[j])[x] for j, x in slots]
+        self.bit = [1 << n if self.need[n] == 1 else 0 for n in range(len(slots))]
+        where = {s: n for n, s in enumerate(slots)}
+        self.bits, self.multi, self.users = [], [], [[] for _ in slots]
+        self.free: list[int] = []
+        # per leg, the mass of its cycles of length >= 2 not yet used
+        self.mass = [sum(x for x in mu if x > 1) for mu in leg_profiles]
+        self.spend: list[tuple[tuple[int, int], ...]] = []
+        for i, shape in enumerate(shapes):
+            self.spend.append(tuple((j, sum(x for x in nu if x > 1)) for j, nu in enumerate(shape.legs)
+                                    if any(x > 1 for x in nu)))
+            used = sorted((where[(j, x)], m) for j, nu in enumerate(shape.legs)
+                          for x, m in Counter(nu).items() if x > 1)
+            self.bits.append(sum(self.bit[n] for n, _ in used))
+            self.multi.append(tuple((n, m) for n, m in used if not self.bit[n]))
+            (self.users[used[0][0]] if used else self.free).append(i)
+
+    def _open(self, slot: int, mask: int) -> int:
+        """The first slot from ``slot`` on that is still needed."""
+        while slot < len(self.need) and (mask & self.bit[slot] if self.bit[slot] else self.need[slot] == 0):
+            slot += 1
+        return slot
+
+    def cover(self, slot: int, last: int, left: int, genus_left: int, mask: int, acc: list, out: list) -> None:
+        """Phases over the slots; ``last`` is the least index allowed in this phase."""
+        opened = self._open(slot, mask)
+        if opened != slot:
+            slot, last = opened, -1
+        if slot == len(self.need):
+            self.fill(0, left, genus_left, acc, out)
+            return
+        for idx in self.users[slot]:
+            s = self.shapes[idx]
+            if (idx < last or s.degree > left or s.genus > genus_left or self.bits[idx] & mask
+                    or any(self.need[n] < m for n, m in self.multi[idx])):
+                continue
+            for j, m in self.spend[idx]:
+                self.mass[j] -= m
+            # a leg's remaining ramified cycles must fit in the remaining degree
+            if max(self.mass) <= left - s.degree:
+                for n, m in self.multi[idx]:
+                    self.need[n] -= m
+                acc.append(idx)
+                self.cover(slot, idx, left - s.degree, genus_left - s.genus, mask | self.bits[idx], acc, out)
+                acc.pop()
+                for n, m in self.multi[idx]:
+                    self.need[n] += m
+            for j, m in self.spend[idx]:
+                self.mass[j] += m
+
+    def fill(self, start: int, left: int, genus_left: int, acc: list, out: list) -> None:
+        """The last phase: shapes unramified at every leg, non-decreasing."""
+        if left == 0:
+            out.append(tuple(acc))
+            return
+        for t in range(start, len(self.free)):
+            s = self.shapes[self.free[t]]
+            if s.degree > left:
+                break
+            if s.genus <= genus_left:
+                acc.append(self.free[t])
+                self.fill(t, left - s.degree, genus_left - s.genus, acc, out)
+                acc.pop()
