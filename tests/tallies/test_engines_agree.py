@@ -10,9 +10,13 @@ from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
 from covertree.catalogue.catalogue import build_catalogue
+from covertree.catalogue.pullback import build_pullback
+from covertree.export.catalogue import catalogue_to_dict
+from covertree.export.tallies import tallies_to_dict
 from covertree.errors import ProblemError
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.symmetric.partitions import partitions_of
+from covertree.tallies.pullback import pullback_from_types
 from covertree.tallies.types import tally_catalogue
 
 
@@ -81,3 +85,37 @@ def test_engines_agree_random(drawn):
     except ProblemError:
         return  # odd ramification or an unstable target: nothing to compare
     assert_agree(problem, codim)
+
+
+@pytest.mark.parametrize("problem", [
+    HurwitzProblem.build(2, 0, genus=2),
+    HurwitzProblem.build(2, 0, genus=3),
+    HurwitzProblem.build(3, 0, genus=2),
+    HurwitzProblem.build(2, 1, genus=2),
+    HurwitzProblem.build(3, 1, genus=2),
+    HurwitzProblem.build(4, 1, genus=2),
+    HurwitzProblem.build(3, 1, genus=3),
+    HurwitzProblem.build(2, 2, None, ["1,1"]),
+    HurwitzProblem.build(4, 0, None, ["2,2", "2,2", "2,2", "2,2", "3,1"]),
+    HurwitzProblem.build(3, 0, None, ["3", "3", "3", "3"]),
+])
+def test_pullback_coefficients_agree(problem):
+    listed = build_pullback(problem)
+    typed = pullback_from_types(problem)
+    assert typed.divisors == listed.divisors
+    assert [r.base for r in typed.rows] == [r.base for r in listed.rows]
+    for a, b in zip(listed.rows, typed.rows):
+        assert a.coefficients == b.coefficients, a.base.graph.notation
+        assert a.branch_total == b.branch_total == a.hurwitz_number
+
+
+def test_json_has_the_catalogue_shape_without_covers():
+    problem = HurwitzProblem.build(3, 1, genus=2)
+    listed = catalogue_to_dict(build_catalogue(problem, 1))
+    typed = tallies_to_dict(tally_catalogue(problem, 1))
+    assert typed["problem"] == listed["problem"]
+    assert typed["hurwitz_number"] == listed["hurwitz_number"]
+    for a, b in zip(listed["strata"], typed["strata"]):
+        assert "covers" not in b and "n_covers" not in b
+        for key in ("base", "codim", "orbit_size", "total_weight", "by_source", "hurwitz_number", "identity"):
+            assert a[key] == b[key], key
