@@ -147,7 +147,7 @@ def draw_pair(source, source_labels: Sequence[str], base, base_labels: Sequence[
     profiles, legs by branch points)."""
     _suffix(path)
     tools = _pyplot()
-    plt, _Circle, FancyArrowPatch = tools[0], tools[1], tools[2]
+    plt, FancyArrowPatch = tools[0], tools[2]
     fig, ax = plt.subplots()
     sx0, sx1, sy0, sy1 = _panel(ax, source, source_labels, 0.0, tools)
     base_lay = layout(base.n_vertices, base.edges, base.legs)
