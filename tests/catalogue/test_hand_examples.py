@@ -12,8 +12,6 @@ from __future__ import annotations
 from collections import Counter
 from fractions import Fraction
 
-import pytest
-
 from covertree.catalogue.catalogue import build_catalogue
 from covertree.catalogue.covers import stratum_covers
 from covertree.graphs.notation import parse_graph

@@ -21,7 +21,7 @@ from covertree.gluing.structure import Glued, canonical_code
 from covertree.graphs.notation import parse_graph
 from covertree.monodromy.local import special_points
 from covertree.monodromy.pieces import Piece
-from covertree.symmetric.permutations import compose, cycles, inverse
+from covertree.symmetric.permutations import compose, inverse
 
 CASES = [
     # (base, degree, profiles)
