@@ -35,6 +35,7 @@ the only local multiset is one of each.
 
 from __future__ import annotations
 
+from bisect import bisect_left
 from collections import Counter
 from collections.abc import Sequence
 from dataclasses import dataclass, field
@@ -170,6 +171,8 @@ class _SlotPlan:
             self.bits.append(sum(self.bit[n] for n, _ in used))
             self.multi.append(tuple((n, m) for n, m in used if not self.bit[n]))
             (self.users[used[0][0]] if used else self.free).append(i)
+        self.rows = [(sh.degree, sh.genus, b, m, sp)
+                     for sh, b, m, sp in zip(shapes, self.bits, self.multi, self.spend)]
 
     def _open(self, slot: int, mask: int) -> int:
         """The first slot from ``slot`` on that is still needed."""
@@ -185,23 +188,24 @@ class _SlotPlan:
         if slot == len(self.need):
             self.fill(0, left, genus_left, acc, out)
             return
-        for idx in self.users[slot]:
-            s = self.shapes[idx]
-            if (idx < last or s.degree > left or s.genus > genus_left or self.bits[idx] & mask
-                    or any(self.need[n] < m for n, m in self.multi[idx])):
+        users = self.users[slot]
+        for t in range(bisect_left(users, last), len(users)):
+            idx = users[t]
+            degree, genus, bits, multi, spend = self.rows[idx]
+            if degree > left or genus > genus_left or bits & mask or any(self.need[n] < m for n, m in multi):
                 continue
-            for j, m in self.spend[idx]:
+            for j, m in spend:
                 self.mass[j] -= m
             # a leg's remaining ramified cycles must fit in the remaining degree
-            if max(self.mass) <= left - s.degree:
-                for n, m in self.multi[idx]:
+            if max(self.mass) <= left - degree:
+                for n, m in multi:
                     self.need[n] -= m
                 acc.append(idx)
-                self.cover(slot, idx, left - s.degree, genus_left - s.genus, mask | self.bits[idx], acc, out)
+                self.cover(slot, idx, left - degree, genus_left - genus, mask | bits, acc, out)
                 acc.pop()
-                for n, m in self.multi[idx]:
+                for n, m in multi:
                     self.need[n] += m
-            for j, m in self.spend[idx]:
+            for j, m in spend:
                 self.mass[j] += m
 
     def fill(self, start: int, left: int, genus_left: int, acc: list, out: list) -> None:
