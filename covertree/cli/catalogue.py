@@ -16,9 +16,12 @@ from covertree.catalogue.covers import divisor_name
 from covertree.catalogue.local_structure import local_structure
 from covertree.cli.render import each_with_progress, table_text
 from covertree.export.catalogue import catalogue_to_csv, catalogue_to_json, catalogue_to_latex, cover_to_jsonl
+from covertree.errors import InputError
 from covertree.export.rational import rational_str
+from covertree.export.tallies import tallies_to_json
 from covertree.graphs.notation import parse_graph
 from covertree.hurwitz.problem import HurwitzProblem
+from covertree.tallies.types import TallyCatalogue, tally_catalogue
 
 
 def problem_options(func):
@@ -45,14 +48,25 @@ def problem_options(func):
 @click.option("--max-covers", "-m", "max_covers", type=click.IntRange(min=1), default=DEFAULT_MAX_COVERS,
               show_default=True, help="Stop with an error rather than list more covers than this.")
 @click.option("--standalone", is_flag=True, help="LaTeX, TikZ: a complete document.")
+@click.option("--engine", "engine", type=click.Choice(["list", "types"]), default="list", show_default=True,
+              help="list: every cover; types: per-stratum and per-source tallies from combinatorial types "
+                   "(no covers listed, for large degree; table or json only).")
 @format_option(["table", "json", "jsonl", "csv", "latex", "tikz"])
 @output_option
-def command(genus, target_genus, degree, profiles, codim, stratum, labeled, max_covers, standalone, fmt, output):
+def command(genus, target_genus, degree, profiles, codim, stratum, labeled, max_covers, standalone, engine,
+            fmt, output):
     """List every admissible cover over a fixed curve of each boundary stratum of
     the target: source and stable source, |Aut|, multiplicity, weight; check
     that each stratum's weights add up to the Hurwitz number."""
     problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles)
     graph = parse_graph(stratum) if stratum is not None else None
+    if engine == "types":
+        if fmt not in ("table", "json"):
+            raise InputError(f"--engine types gives summaries only: use --format table or json, not {fmt}")
+        tallies = tally_catalogue(problem, codim, graph, labeled)
+        emit(tallies_to_json(tallies) if fmt == "json" else tallies_table(tallies), output)
+        _report([(s.base.graph.notation, s.total_weight, s.hurwitz_number) for s in tallies.failures])
+        return
     if fmt == "jsonl":
         failures = _stream(problem, codim, graph, labeled, max_covers, output)
     else:
@@ -151,3 +165,19 @@ def catalogue_table(cat: Catalogue) -> str:
                        f"profiles {' '.join('(' + str(m) + ')' for m in p.profiles)}; Hurwitz number "
                        f"{rational_str(cat.hurwitz_number)}", show_header=False, box=None)
     return table_text(head, *(_stratum_table(s) for s in cat.strata), _landing_table(cat), width=100)
+
+
+def tallies_table(tallies: TallyCatalogue) -> str:
+    """The table rendering of ``--engine types``: one summary row per stratum,
+    then the landing summary (weight per stable source)."""
+    p = tallies.problem
+    head = Table(title=f"tallies from types: genus {p.genus} over genus {p.target_genus}, degree {p.degree}, "
+                       f"profiles {' '.join('(' + str(m) + ')' for m in p.profiles)}; Hurwitz number "
+                       f"{rational_str(tallies.hurwitz_number)}", show_header=False, box=None)
+    table = Table(title="total weight per base stratum")
+    for name in ("base", "codim", "orbit", "total weight", "Hurwitz number", "identity"):
+        table.add_column(name, justify="left" if name in ("base", "identity") else "right", overflow="fold")
+    for s in tallies.strata:
+        table.add_row(s.base.graph.notation, str(s.base.codim), str(s.base.orbit_size), rational_str(s.total_weight),
+                      rational_str(s.hurwitz_number), "holds" if s.identity_holds else "FAILS")
+    return table_text(head, table, _landing_table(tallies), width=100)

@@ -16,6 +16,7 @@ from covertree.cli.render import table_text
 from covertree.export.pullback import pullback_to_csv, pullback_to_json, pullback_to_latex
 from covertree.export.rational import rational_str
 from covertree.hurwitz.problem import HurwitzProblem
+from covertree.tallies.pullback import pullback_from_types
 
 
 @click.command("pullback", cls=OneLineCommand)
@@ -24,9 +25,11 @@ from covertree.hurwitz.problem import HurwitzProblem
 @click.option("--max-covers", "-m", "max_covers", type=click.IntRange(min=1), default=DEFAULT_MAX_COVERS,
               show_default=True, help="Stop with an error rather than list more covers than this.")
 @click.option("--standalone", is_flag=True, help="LaTeX: a complete document.")
+@click.option("--engine", "engine", type=click.Choice(["list", "types"]), default="list", show_default=True,
+              help="list: from every cover; types: from combinatorial types (no covers listed, for large degree).")
 @format_option(["table", "json", "csv", "latex"])
 @output_option
-def command(genus, target_genus, degree, profiles, labeled, max_covers, standalone, fmt, output):
+def command(genus, target_genus, degree, profiles, labeled, max_covers, standalone, engine, fmt, output):
     """For every boundary divisor D of the target's moduli space and every
     boundary divisor delta of Mbar_G, the coefficient c(D, delta) of D in
     br_* src^* delta: the sum over the covers f over D of
@@ -34,7 +37,7 @@ def command(genus, target_genus, degree, profiles, labeled, max_covers, standalo
     the smoothing orders of the stable nodes of type delta). Checks that
     sum_f #branches * L / |Aut f| equals the Hurwitz number over every D."""
     problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles)
-    pb = build_pullback(problem, labeled, max_covers)
+    pb = pullback_from_types(problem, labeled) if engine == "types" else build_pullback(problem, labeled, max_covers)
     emit(_render(pb, fmt, standalone), output)
     for r in pb.failures:
         click.echo(

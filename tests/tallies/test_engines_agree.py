@@ -119,3 +119,27 @@ def test_json_has_the_catalogue_shape_without_covers():
         assert "covers" not in b and "n_covers" not in b
         for key in ("base", "codim", "orbit_size", "total_weight", "by_source", "hurwitz_number", "identity"):
             assert a[key] == b[key], key
+
+
+def test_cli_engine_types():
+    import json
+
+    from click.testing import CliRunner
+
+    from covertree.cli import main
+
+    runner = CliRunner()
+    args = ["catalogue", "-t", "1", "-d", "3", "-g", "2", "-f", "json"]
+    listed = json.loads(runner.invoke(main, args).output)
+    result = runner.invoke(main, args + ["--engine", "types"])
+    assert result.exit_code == 0, result.output
+    typed = json.loads(result.output)
+    assert [(s["total_weight"], s["by_source"]) for s in typed["strata"]] == \
+        [(s["total_weight"], s["by_source"]) for s in listed["strata"]]
+    assert all("covers" not in s for s in typed["strata"])
+    table = runner.invoke(main, ["catalogue", "-t", "1", "-d", "3", "-g", "2", "--engine", "types"])
+    assert table.exit_code == 0 and "holds" in table.output and "FAILS" not in table.output
+    bad = runner.invoke(main, ["catalogue", "-t", "1", "-d", "3", "-g", "2", "--engine", "types", "-f", "csv"])
+    assert bad.exit_code == 2
+    pb = ["pullback", "-t", "1", "-d", "4", "-g", "2", "-f", "csv"]
+    assert runner.invoke(main, pb + ["--engine", "types"]).output == runner.invoke(main, pb).output
