@@ -48,7 +48,7 @@ def problem_options(func):
 @click.option("--max-covers", "-m", "max_covers", type=click.IntRange(min=1), default=DEFAULT_MAX_COVERS,
               show_default=True, help="Stop with an error rather than list more covers than this.")
 @click.option("--standalone", is_flag=True, help="LaTeX, TikZ: a complete document.")
-@click.option("--engine", "engine", type=click.Choice(["list", "types"]), default="list", show_default=True,
+@click.option("--engine", "-e", "engine", type=click.Choice(["list", "types"]), default="list", show_default=True,
               help="list: every cover; types: per-stratum and per-source tallies from combinatorial types "
                    "(no covers listed, for large degree; table or json only).")
 @format_option(["table", "json", "jsonl", "csv", "latex", "tikz"])

@@ -25,7 +25,7 @@ from covertree.tallies.pullback import pullback_from_types
 @click.option("--max-covers", "-m", "max_covers", type=click.IntRange(min=1), default=DEFAULT_MAX_COVERS,
               show_default=True, help="Stop with an error rather than list more covers than this.")
 @click.option("--standalone", is_flag=True, help="LaTeX: a complete document.")
-@click.option("--engine", "engine", type=click.Choice(["list", "types"]), default="list", show_default=True,
+@click.option("--engine", "-e", "engine", type=click.Choice(["list", "types"]), default="list", show_default=True,
               help="list: from every cover; types: from combinatorial types (no covers listed, for large degree).")
 @format_option(["table", "json", "csv", "latex"])
 @output_option

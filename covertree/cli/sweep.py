@@ -18,7 +18,7 @@ from covertree.cli.params import INT_RANGE, PROFILE, OneLineCommand, emit, forma
 from covertree.cli.render import table_text
 from covertree.errors import InputError
 from covertree.export.rational import rational_str
-from covertree.export.sweep import landing_columns, summary_line, sweep_from_json, sweep_to_csv, sweep_to_json, sweep_to_latex
+from covertree.export.sweep import count_text, landing_columns, summary_line, sweep_from_json, sweep_to_csv, sweep_to_json, sweep_to_latex
 from covertree.sweep.report import SweepReport, merge_reports, shard_report, store_report, sweep_report
 from covertree.sweep.runner import ProcessBackend, RunOutcome, SerialBackend, run_tasks
 from covertree.sweep.store import ResultStore
@@ -35,12 +35,12 @@ def _check_range(name: str, values: list[int] | None, least: int) -> None:
         raise InputError(f"{name} {bad[0]} is not allowed; {name} values must be >= {least}")
 
 
-def _spec(genus, target_genus, degree, profiles, codim, labeled) -> SweepSpec:
+def _spec(genus, target_genus, degree, profiles, codim, labeled, engine="list") -> SweepSpec:
     _check_range("--genus", genus, 0)
     _check_range("--target-genus", target_genus, 0)
     _check_range("--degree", degree, 1)
     return SweepSpec(tuple(genus) if genus else (None,), tuple(target_genus), tuple(degree),
-                     tuple(profiles), codim, labeled)
+                     tuple(profiles), codim, labeled, engine)
 
 
 def _backend(jobs: int, dask: str | None):
@@ -98,6 +98,8 @@ def _run(plan: Plan, tasks, backend, store: str | None, show: bool) -> RunOutcom
 @click.option("--codim", "-k", "codim", type=click.IntRange(min=0), default=1, show_default=True,
               help="Base strata of codimension up to this.")
 @click.option("--labeled", "-l", is_flag=True, help="Every labelled stratum, not one per orbit.")
+@click.option("--engine", "-e", "engine", type=click.Choice(["list", "types"]), default="list", show_default=True,
+              help="list: covers one by one (with counts); types: tallies from combinatorial types (large degrees).")
 @format_option(FORMATS)
 @click.option("--jobs", "-j", "jobs", type=click.IntRange(min=1), default=1, show_default=True,
               help="Local worker processes.")
@@ -108,12 +110,13 @@ def _run(plan: Plan, tasks, backend, store: str | None, show: bool) -> RunOutcom
               help="SQLite results store: finished tasks are kept, a rerun computes only the rest.")
 @quiet_option
 @output_option
-def sweep(genus, target_genus, degree, profiles, codim, labeled, fmt, jobs, shard, dask, store, quiet, output):
+def sweep(genus, target_genus, degree, profiles, codim, labeled, engine, fmt, jobs, shard, dask, store, quiet,
+          output):
     """Run every Hurwitz problem of the ranges over every base stratum of
     codimension <= K: one row per (problem, stratum) with the number of
     covers, total weight, Hurwitz number, identity verdict and the weight
     landing on each boundary divisor delta_i of the source space."""
-    spec = _spec(genus, target_genus, degree, profiles, codim, labeled)
+    spec = _spec(genus, target_genus, degree, profiles, codim, labeled, engine)
     piece = parse_shard(shard) if shard is not None else None
     plan = plan_sweep(spec)
     tasks = shard_tasks(plan.tasks, *piece) if piece else plan.tasks
@@ -199,7 +202,7 @@ def sweep_table(report: SweepReport) -> str:
         p, landing = row.problem, dict(row.landing)
         table.add_row(str(p.genus), str(p.target_genus), str(p.degree),
                       " ".join(f"({mu})" for mu in p.profiles) or "-", row.stratum, str(row.orbit_size),
-                      str(row.n_covers), rational_str(row.total_weight), rational_str(row.hurwitz_number),
+                      count_text(row.n_covers), rational_str(row.total_weight), rational_str(row.hurwitz_number),
                       "holds" if row.identity_holds else "FAILS",
                       *(rational_str(landing[c]) if c in landing else "" for c in columns))
     tables = [table]

@@ -134,7 +134,7 @@ def _latex_row(row: StratumSummary, columns: list[str]) -> str:
     p, landing = row.problem, dict(row.landing)
     cells = [str(p.genus), str(p.target_genus), str(p.degree),
              "$" + ";".join(",".join(map(str, mu)) for mu in p.profiles) + "$" if p.profiles else "--",
-             notation_math(row.stratum), str(row.orbit_size), str(row.n_covers),
+             notation_math(row.stratum), str(row.orbit_size), count_text(row.n_covers),
              f"${latex_rational(row.total_weight)}$", f"${latex_rational(row.hurwitz_number)}$",
              "holds" if row.identity_holds else "FAILS"]
     cells += [f"${latex_rational(landing[c])}$" if c in landing else "" for c in columns]
@@ -199,3 +199,12 @@ def _report(doc: dict) -> SweepReport:
     skipped = tuple(Skipped(s["genus"], s["target_genus"], s["degree"], s["reason"]) for s in doc["skipped"])
     return SweepReport(spec, tuple(_problem(p) for p in doc["problems"]), skipped,
                        tuple(_row(r) for r in doc["strata"]), shard)
+
+
+def count_text(n_covers: int | None) -> str:
+    """A cover count for tables: ``-`` when the type engine gave none.
+
+    >>> count_text(3), count_text(None)
+    ('3', '-')
+    """
+    return "-" if n_covers is None else str(n_covers)

@@ -53,7 +53,7 @@ class SweepReport:
     def summary(self) -> dict:
         """``{"problems", "skipped", "strata", "covers", "failures"}``."""
         return {"problems": len(self.problems), "skipped": len(self.skipped), "strata": len(self.rows),
-                "covers": sum(r.n_covers for r in self.rows), "failures": len(self.failures)}
+                "covers": sum(r.n_covers or 0 for r in self.rows), "failures": len(self.failures)}
 
 
 def sweep_report(plan: Plan, rows: Sequence[StratumSummary]) -> SweepReport:

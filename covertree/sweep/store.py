@@ -59,6 +59,9 @@ SCHEMA_VERSION = 1
 #: Seconds a writer waits for another process's transaction to finish.
 BUSY_TIMEOUT = 60.0
 
+#: Stored in ``n_covers`` for results of the type engine (no cover count).
+_NO_COUNT = -1
+
 _KEY = ("genus", "target_genus", "degree", "profiles", "grouping", "stratum", "model_version")
 _DATA = ("position", "codim", "orbit_size", "n_covers", "hurwitz_number", "total_weight", "landing")
 
@@ -155,7 +158,8 @@ class ResultStore:
         """Commit one finished task in its own transaction."""
         landing = json.dumps({name: rational_str(w) for name, w in summary.landing})
         values = (*_task_key(task), task.position, summary.codim, summary.orbit_size,
-                  summary.n_covers, rational_str(summary.hurwitz_number),
+                  _NO_COUNT if summary.n_covers is None else summary.n_covers,
+                  rational_str(summary.hurwitz_number),
                   rational_str(summary.total_weight), landing)
         marks = ", ".join("?" * len(values))
         with _transaction(self._conn):
@@ -246,5 +250,6 @@ def _summary(row: sqlite3.Row) -> StratumSummary:
     profiles = tuple(Partition.parse(t) for t in row["profiles"].split(";")) if row["profiles"] else ()
     problem = HurwitzProblem(row["genus"], row["target_genus"], row["degree"], profiles)
     landing = tuple((name, Fraction(w)) for name, w in json.loads(row["landing"]).items())
-    return StratumSummary(problem, row["stratum"], row["codim"], row["orbit_size"], row["n_covers"],
+    n_covers = None if row["n_covers"] == _NO_COUNT else row["n_covers"]
+    return StratumSummary(problem, row["stratum"], row["codim"], row["orbit_size"], n_covers,
                           Fraction(row["hurwitz_number"]), landing)

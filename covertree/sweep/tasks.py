@@ -44,10 +44,12 @@ from fractions import Fraction
 from itertools import product
 
 from covertree.catalogue.catalogue import iter_stratum, problem_hurwitz, select_strata
+from covertree.catalogue.covers import divisor_name
 from covertree.errors import InputError, ProblemError, ProfileError
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.strata.base import BaseStratum
 from covertree.symmetric.partitions import Partition
+from covertree.tallies.types import tally_stratum
 
 __all__ = [
     "SweepSpec", "Skipped", "Task", "Plan", "StratumSummary", "plan_sweep", "compute_task",
@@ -57,6 +59,10 @@ __all__ = [
 #: The name of the landing column that collects every stable source which is
 #: not a boundary divisor ``delta_i`` (smooth sources, deeper strata, genus < 2).
 OTHER = "other"
+
+
+#: The engines a sweep can run: covers listed, or tallies from types.
+ENGINES = ("list", "types")
 
 
 @dataclass(frozen=True)
@@ -82,6 +88,7 @@ class SweepSpec:
     profiles: tuple[Partition, ...] = ()
     codim: int = 1
     labeled: bool = False
+    engine: str = "list"
 
     def __post_init__(self) -> None:
         genera = tuple(sorted(set(self.genera), key=lambda g: -1 if g is None else g))
@@ -93,11 +100,15 @@ class SweepSpec:
             raise InputError("a sweep needs at least one target genus and one degree")
         if self.codim < 0:
             raise InputError(f"codimension {self.codim} is negative; allowed: 0, 1, 2, ...")
+        if self.engine not in ENGINES:
+            raise InputError(f"engine {self.engine!r} is unknown; allowed: {', '.join(ENGINES)}")
 
     @property
     def grouping(self) -> str:
-        """``"labeled"`` or ``"orbit"``: how base strata are listed."""
-        return "labeled" if self.labeled else "orbit"
+        """``"labeled"`` or ``"orbit"``: how base strata are listed (with
+        ``"+types"`` appended for the type engine, whose results carry no cover
+        counts, so that a store keeps the two apart)."""
+        return ("labeled" if self.labeled else "orbit") + ("+types" if self.engine == "types" else "")
 
     def to_dict(self) -> dict:
         """JSON-ready form (``genus`` is ``null`` when derived from the profiles)."""
@@ -108,6 +119,7 @@ class SweepSpec:
             "profiles": [list(p) for p in self.profiles],
             "codim": self.codim,
             "labeled": self.labeled,
+            "engine": self.engine,
         }
 
     @classmethod
@@ -123,7 +135,7 @@ class SweepSpec:
             genera = (None,) if data["genus"] is None else tuple(int(g) for g in data["genus"])
             return cls(genera, tuple(data["target_genus"]), tuple(data["degree"]),
                        tuple(Partition(p) for p in data["profiles"]), int(data["codim"]),
-                       bool(data["labeled"]))
+                       bool(data["labeled"]), str(data.get("engine", "list")))
         except (KeyError, TypeError, ValueError) as error:
             raise InputError(f"not a sweep description: missing or malformed {error}") from None
 
@@ -160,6 +172,12 @@ class Task:
     base: BaseStratum
     position: int
     grouping: str = "orbit"
+
+    @property
+    def engine(self) -> str:
+        """``"list"`` (covers listed one by one) or ``"types"`` (tallies from
+        combinatorial types, no cover count)."""
+        return "types" if self.grouping.endswith("+types") else "list"
 
     @property
     def label(self) -> str:
@@ -277,14 +295,15 @@ class StratumSummary:
     """The tallies of one task (one row of a sweep's output).
 
     ``landing`` pairs each name of :func:`divisor_names` (then ``"other"``)
-    with the summed weight of the covers whose stable source is that stratum.
+    with the summed weight of the covers whose stable source is that stratum;
+    ``n_covers`` is ``None`` for the type engine, which does not list covers.
     """
 
     problem: HurwitzProblem
     stratum: str
     codim: int
     orbit_size: int
-    n_covers: int
+    n_covers: int | None
     hurwitz_number: Fraction
     landing: tuple[tuple[str, Fraction], ...]
 
@@ -310,10 +329,19 @@ def compute_task(task: Task) -> StratumSummary:
     """
     problem, base = task.problem, task.base
     tally = dict.fromkeys([*divisor_names(problem.genus), OTHER], Fraction(0))
-    n_covers = 0
-    for cover in iter_stratum(problem, base, [sys.maxsize]):
-        n_covers += 1
-        name = cover.stable_source_name
-        tally[name if name in tally else OTHER] += cover.weight
+    n_covers = None
+    if task.engine == "types":
+        for graph, weight in tally_stratum(problem, base).by_source():
+            _land(tally, divisor_name(graph), weight)
+    else:
+        n_covers = 0
+        for cover in iter_stratum(problem, base, [sys.maxsize]):
+            n_covers += 1
+            _land(tally, cover.stable_source_name, cover.weight)
     return StratumSummary(problem, base.graph.notation, base.codim, base.orbit_size, n_covers,
                           problem_hurwitz(problem), tuple(tally.items()))
+
+
+def _land(tally: dict[str, Fraction], name: str | None, weight: Fraction) -> None:
+    """Add ``weight`` to the divisor ``name`` (or to ``"other"``)."""
+    tally[name if name in tally else OTHER] += weight
