@@ -28,24 +28,12 @@ from covertree.gluing.covers import glued_covers  # noqa: E402
 from covertree.hurwitz.problem import HurwitzProblem  # noqa: E402
 from covertree.strata.base import base_strata  # noqa: E402
 from tests.oracle.brute_covers import brute_force_covers  # noqa: E402
+from tests.quasimodular import f2_coefficients  # noqa: E402
 
 
 def dijkgraaf_count(degree: int) -> Fraction:
-    """2 [q^D] (10 E_2^3 - 6 E_2 E_4 - 4 E_6) / 103680."""
-    n = degree + 1
-
-    def sigma(k, m):
-        return sum(e**k for e in range(1, m + 1) if m % e == 0)
-
-    def eis(c, k):
-        return [Fraction(1)] + [Fraction(c * sigma(k, m)) for m in range(1, n)]
-
-    def mul(a, b):
-        return [sum(a[i] * b[m - i] for i in range(m + 1)) for m in range(n)]
-
-    e2, e4, e6 = eis(-24, 1), eis(240, 3), eis(-504, 5)
-    f2 = [(10 * x - 6 * y - 4 * z) / 103680 for x, y, z in zip(mul(mul(e2, e2), e2), mul(e2, e4), e6)]
-    return 2 * f2[degree]
+    """2 [q^D] F_2 (Dijkgraaf 1995; see tests/quasimodular.py)."""
+    return 2 * f2_coefficients(degree + 1)[degree]
 
 
 def bench_catalogue(degrees) -> None:

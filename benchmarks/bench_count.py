@@ -8,9 +8,13 @@ against Dijkgraaf's F_2 (2 [q^30] F_2, OEIS A170991).
 
 from __future__ import annotations
 
+import pathlib
 import subprocess
 import sys
 import time
+
+sys.path.insert(0, str(pathlib.Path(__file__).resolve().parent.parent))
+from tests.quasimodular import f2_coefficients  # noqa: E402
 
 CHILD = r"""
 import time
@@ -32,25 +36,9 @@ value = connected_hurwitz(30, 1, [simple(30)] * 2)
 """
 
 
-def _sigma(k: int, n: int) -> int:
-    return sum(e**k for e in range(1, n + 1) if n % e == 0)
-
-
 def _f2_coefficient(d: int):
-    # Dijkgraaf 1995: F_2 = (10 E_2^3 - 6 E_2 E_4 - 4 E_6) / 103680
-    from fractions import Fraction
-
-    n = d + 1
-    e2 = [1] + [-24 * _sigma(1, m) for m in range(1, n)]
-    e4 = [1] + [240 * _sigma(3, m) for m in range(1, n)]
-    e6 = [1] + [-504 * _sigma(5, m) for m in range(1, n)]
-
-    def mul(a, b):
-        return [sum(a[i] * b[m - i] for i in range(m + 1)) for m in range(n)]
-
-    e2_3 = mul(mul(e2, e2), e2)
-    e2e4 = mul(e2, e4)
-    return Fraction(10 * e2_3[d] - 6 * e2e4[d] - 4 * e6[d], 103680)
+    """[q^d] F_2 (Dijkgraaf 1995; see tests/quasimodular.py)."""
+    return f2_coefficients(d + 1)[d]
 
 
 def _timed(body: str, repeats: int = 3) -> list[float]:

@@ -15,8 +15,12 @@ Prints one line per measurement, each run in a fresh process (cold caches):
 
 from __future__ import annotations
 
+import pathlib
 import subprocess
 import sys
+
+sys.path.insert(0, str(pathlib.Path(__file__).resolve().parent.parent))
+from tests.quasimodular import f2_coefficients  # noqa: E402
 
 CHILD = r"""
 import time
@@ -43,23 +47,9 @@ print(t1 - t0, t2 - t1, len(strata), size, result.hurwitz_number)
 """
 
 
-def _sigma(k: int, n: int) -> int:
-    return sum(e**k for e in range(1, n + 1) if n % e == 0)
-
-
 def _f2_coefficient(d: int):
-    # Dijkgraaf 1995: F_2 = (10 E_2^3 - 6 E_2 E_4 - 4 E_6) / 103680
-    from fractions import Fraction
-
-    n = d + 1
-    e2 = [1] + [-24 * _sigma(1, m) for m in range(1, n)]
-    e4 = [1] + [240 * _sigma(3, m) for m in range(1, n)]
-    e6 = [1] + [-504 * _sigma(5, m) for m in range(1, n)]
-
-    def mul(a, b):
-        return [sum(a[i] * b[m - i] for i in range(m + 1)) for m in range(n)]
-
-    return Fraction(10 * mul(mul(e2, e2), e2)[d] - 6 * mul(e2, e4)[d] - 4 * e6[d], 103680)
+    """[q^d] F_2 (Dijkgraaf 1995; see tests/quasimodular.py)."""
+    return f2_coefficients(d + 1)[d]
 
 
 def _run(d: int, h: int, g: int, engine: str = "types") -> tuple[float, float, int, int, str]:

@@ -16,54 +16,16 @@ import pytest
 
 from covertree.catalogue.catalogue import build_catalogue
 from covertree.hurwitz.problem import HurwitzProblem
+from tests.quasimodular import f2_coefficients, f3_coefficients, multiply, sigma
 
 # ----------------------------------------------------------------- q-series
-
-
-def _sigma(k: int, n: int) -> int:
-    return sum(e**k for e in range(1, n + 1) if n % e == 0)
-
-
-def _eisenstein(constant: int, k: int, terms: int) -> list[Fraction]:
-    """``1 + constant * sum sigma_k(n) q^n`` (E_2: -24, sigma_1; E_4: 240, sigma_3;
-    E_6: -504, sigma_5; common knowledge)."""
-    return [Fraction(1)] + [Fraction(constant * _sigma(k, n)) for n in range(1, terms)]
-
-
-def _mul(*series: list[Fraction]) -> list[Fraction]:
-    out = series[0]
-    for s in series[1:]:
-        out = [sum(out[i] * s[n - i] for i in range(n + 1)) for n in range(len(out))]
-    return out
-
-
-def _combine(terms: list[tuple[int, list[Fraction]]], denominator: int) -> list[Fraction]:
-    n = len(terms[0][1])
-    return [sum(c * s[i] for c, s in terms) / denominator for i in range(n)]
-
-
-def dijkgraaf_f2(terms: int) -> list[Fraction]:
-    """R. Dijkgraaf, *Mirror symmetry and elliptic curves* (1995), genus 2:
-    ``F_2 = (10 E_2^3 - 6 E_2 E_4 - 4 E_6) / 103680`` (also Kaneko-Zagier 1995)."""
-    e2, e4, e6 = _eisenstein(-24, 1, terms), _eisenstein(240, 3, terms), _eisenstein(-504, 5, terms)
-    return _combine([(10, _mul(e2, e2, e2)), (-6, _mul(e2, e4)), (-4, e6)], 103680)
-
-
-def dijkgraaf_f3(terms: int) -> list[Fraction]:
-    """Genus 3 (Dijkgraaf 1995; OEIS A170992 gives this generating function):
-    ``(-6E_2^6 + 15E_2^4E_4 + 4E_2^3E_6 - 12E_2^2E_4^2 - 12E_2E_4E_6 + 7E_4^3 + 4E_6^2)/1492992``."""
-    e2, e4, e6 = _eisenstein(-24, 1, terms), _eisenstein(240, 3, terms), _eisenstein(-504, 5, terms)
-    return _combine([
-        (-6, _mul(e2, e2, e2, e2, e2, e2)), (15, _mul(e2, e2, e2, e2, e4)), (4, _mul(e2, e2, e2, e6)),
-        (-12, _mul(e2, e2, e4, e4)), (-12, _mul(e2, e4, e6)), (7, _mul(e4, e4, e4)), (4, _mul(e6, e6)),
-    ], 1492992)
 
 
 def test_series_start_as_published():
     # OEIS A126858 starts 1, 8, 30, 80 (q^2..q^5) and A170992 starts 2, 160, 2448
     # (from memory; the catalogue checks below use the formulas, not these lists)
-    assert dijkgraaf_f2(6)[2:] == [1, 8, 30, 80]
-    assert dijkgraaf_f3(5)[2:] == [2, 160, 2448]
+    assert f2_coefficients(6)[2:] == [1, 8, 30, 80]
+    assert f3_coefficients(5)[2:] == [2, 160, 2448]
 
 
 def _assert_every_stratum(problem: HurwitzProblem, max_codim: int, expected: Fraction) -> None:
@@ -78,14 +40,14 @@ def _assert_every_stratum(problem: HurwitzProblem, max_codim: int, expected: Fra
 def test_genus_two_covers_of_an_elliptic_curve(degree):
     # Dijkgraaf 1995 / OEIS A170991: covers with 2 labelled simple branch points,
     # weight 1/|Aut|, number 2 [q^d] F_2 (the 2 = 2! labellings of the branch points)
-    expected = 2 * dijkgraaf_f2(degree + 1)[degree]
+    expected = 2 * f2_coefficients(degree + 1)[degree]
     _assert_every_stratum(HurwitzProblem.build(degree, 1, genus=2), 2, expected)
 
 
 @pytest.mark.parametrize("degree", [2, 3])
 def test_genus_three_covers_of_an_elliptic_curve(degree):
     # Dijkgraaf 1995 / OEIS A170992: our number (4 labelled simple points) is [q^d] F_3
-    expected = dijkgraaf_f3(degree + 1)[degree]
+    expected = f3_coefficients(degree + 1)[degree]
     _assert_every_stratum(HurwitzProblem.build(degree, 1, genus=3), 2, expected)
 
 
@@ -141,7 +103,7 @@ def gjv_one_part(beta: tuple[int, ...], genus: int) -> Fraction:
     ``r = 2g - 1 + l(beta)``, the preimages of infinity labelled."""
     d, terms = sum(beta), 2 * genus + 1
     r = 2 * genus - 1 + len(beta)
-    series = _mul(*(_series_s(terms, b) for b in beta), _inverse(_series_s(terms, 1)))
+    series = multiply(*(_series_s(terms, b) for b in beta), _inverse(_series_s(terms, 1)))
     return factorial(r) * Fraction(d) ** (r - 1) * series[2 * genus]
 
 
@@ -161,7 +123,7 @@ def test_unramified_covers_of_an_elliptic_curve(d):
     # index-d sublattices of Z^2 number sigma_1(d), each a cover with d deck
     # transformations (common knowledge): H = sigma_1(d)/d; one marked point 1^d
     problem = HurwitzProblem.build(d, 1, profiles=[(1,) * d])
-    _assert_every_stratum(problem, 1, Fraction(_sigma(1, d), d))
+    _assert_every_stratum(problem, 1, Fraction(sigma(1, d), d))
 
 
 @pytest.mark.parametrize("d,subgroups", [

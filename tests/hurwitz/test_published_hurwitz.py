@@ -12,10 +12,7 @@ import pytest
 from covertree.hurwitz.numbers import connected_hurwitz, disconnected_hurwitz, tuple_counts
 from covertree.symmetric.characters import dimensions
 from covertree.symmetric.partitions import partitions_of, simple
-
-
-def _sigma(k: int, n: int) -> int:
-    return sum(e**k for e in range(1, n + 1) if n % e == 0)
+from tests.quasimodular import f2_coefficients, f3_coefficients, sigma
 
 
 # --- genus 0 ----------------------------------------------------------------
@@ -122,33 +119,13 @@ def test_one_part_double_hurwitz_by_hand():
 _N = 11  # q-expansions to q^10
 
 
-def _eisenstein(c: int, k: int) -> list[int]:
-    # E_2 = 1 - 24 sum sigma_1(n) q^n, E_4 = 1 + 240 sum sigma_3(n) q^n,
-    # E_6 = 1 - 504 sum sigma_5(n) q^n (common knowledge)
-    return [1] + [c * _sigma(k, n) for n in range(1, _N)]
-
-
-def _q_mul(*series):
-    out = [1] + [0] * (_N - 1)
-    for s in series:
-        out = [sum(out[i] * s[n - i] for i in range(n + 1)) for n in range(_N)]
-    return out
-
-
-E2, E4, E6 = _eisenstein(-24, 1), _eisenstein(240, 3), _eisenstein(-504, 5)
-
-
-def _combine(terms, denominator):
-    return [Fraction(sum(c * s[n] for c, s in terms), denominator) for n in range(_N)]
-
-
 def test_genus_two_covers_of_elliptic_curve():
     # R. Dijkgraaf, "Mirror symmetry and elliptic curves" (1995); M. Kaneko and
     # D. Zagier (1995): F_2 = (10 E_2^3 - 6 E_2 E_4 - 4 E_6)/103680.  OEIS A170991
     # (2, 16, 60, 160, 360, 672, 1240, ...) counts these covers with 2 labelled
     # simple points in our convention, and equals 2 [q^d] F_2 = (2g-2)! [q^d] F_2:
     # the factor that holds is 2.
-    f2 = _combine([(10, _q_mul(E2, E2, E2)), (-6, _q_mul(E2, E4)), (-4, E6)], 103680)
+    f2 = f2_coefficients(_N)
     ours = [connected_hurwitz(d, 1, [simple(d)] * 2) for d in range(2, _N)]
     assert ours == [2 * f2[d] for d in range(2, _N)]
     assert ours[:7] == [2, 16, 60, 160, 360, 672, 1240]  # OEIS A170991
@@ -159,18 +136,7 @@ def test_genus_three_covers_of_elliptic_curve():
     # (-6E_2^6 + 15E_2^4E_4 + 4E_2^3E_6 - 12E_2^2E_4^2 - 12E_2E_4E_6 + 7E_4^3 + 4E_6^2)/1492992.
     # Against OEIS A170992 (2, 160, 2448, 18304, 90552, ...) the factor relating it
     # to our count (4 labelled simple points) is 1: its coefficients are our numbers.
-    f3 = _combine(
-        [
-            (-6, _q_mul(E2, E2, E2, E2, E2, E2)),
-            (15, _q_mul(E2, E2, E2, E2, E4)),
-            (4, _q_mul(E2, E2, E2, E6)),
-            (-12, _q_mul(E2, E2, E4, E4)),
-            (-12, _q_mul(E2, E4, E6)),
-            (7, _q_mul(E4, E4, E4)),
-            (4, _q_mul(E6, E6)),
-        ],
-        1492992,
-    )
+    f3 = f3_coefficients(_N)
     ours = [connected_hurwitz(d, 1, [simple(d)] * 4) for d in range(2, _N)]
     assert ours == [f3[d] for d in range(2, _N)]
     assert ours[:5] == [2, 160, 2448, 18304, 90552]  # OEIS A170992
@@ -181,7 +147,7 @@ def test_unramified_covers_of_elliptic_curve(d):
     # index-d sublattices of Z^2 number sigma_1(d) (common knowledge); a connected
     # unramified cover is one up to the d sheet labellings / d: H = sigma_1(d)/d.
     # The disconnected number is the number p(d) of partitions (commuting pairs / d!).
-    assert connected_hurwitz(d, 1, [(1,) * d]) == Fraction(_sigma(1, d), d)
+    assert connected_hurwitz(d, 1, [(1,) * d]) == Fraction(sigma(1, d), d)
     assert disconnected_hurwitz(d, 1, [(1,) * d]) == len(list(partitions_of(d)))
 
 

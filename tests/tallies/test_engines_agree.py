@@ -3,7 +3,6 @@ every node-profile breakdown and every (profiles, source, stable source) class
 agree exactly, on problems the list engine finishes in seconds."""
 
 from collections import Counter
-from fractions import Fraction
 
 import pytest
 from hypothesis import HealthCheck, given, settings
