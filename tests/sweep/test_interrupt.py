@@ -10,11 +10,14 @@ import pytest
 
 from tests.sweep.helpers import invoke, spawn
 
-# 15 tasks: genus 3 over an elliptic curve, degrees 2..4 (5 strata each); the
-# degree-4 tasks take seconds, so there is time to interrupt after 11 of them.
+# 15 tasks: genus 3 over an elliptic curve, degrees 2..4 (5 strata each).  The
+# degree-4 tasks are the slow ones (about half a second each): a serial run does
+# them last, so it is interrupted after 11 tasks; a pool hands out the largest
+# tasks first, so it is interrupted after 2, while degree-4 tasks remain.
 ARGS = ["sweep", "-g", "3", "-t", "1", "-d", "2..4", "-f", "json"]
 TASKS = 15
-AFTER = 11
+AFTER_SERIAL = 11
+AFTER_POOL = 2
 
 
 @pytest.fixture(scope="module")
@@ -36,14 +39,14 @@ def stored(path) -> int:
         conn.close()
 
 
-def interrupt(path, sig, *extra) -> int:
-    """Start a sweep writing to ``path``, send ``sig`` once AFTER tasks are
+def interrupt(path, sig, after, *extra) -> int:
+    """Start a sweep writing to ``path``, send ``sig`` once ``after`` tasks are
     committed, and return how many tasks the store then holds."""
     # a child of a background shell would inherit SIGINT ignored: restore it
     restore = (lambda: signal.signal(signal.SIGINT, signal.SIG_DFL)) if sig == signal.SIGINT else None
     child = spawn(*ARGS, "--store", str(path), *extra, preexec_fn=restore)
     deadline = time.monotonic() + 120
-    while stored(path) < AFTER:
+    while stored(path) < after:
         assert child.poll() is None, child.communicate()
         assert time.monotonic() < deadline
         time.sleep(0.01)
@@ -55,8 +58,8 @@ def interrupt(path, sig, *extra) -> int:
     return stored(path)
 
 
-def check_resumed(path, kept: int, reference: str) -> None:
-    assert AFTER <= kept < TASKS
+def check_resumed(path, kept: int, reference: str, after: int) -> None:
+    assert after <= kept < TASKS
     with sqlite3.connect(path) as conn:
         assert conn.execute("PRAGMA integrity_check").fetchone()[0] == "ok"
     conn.close()
@@ -69,13 +72,13 @@ def check_resumed(path, kept: int, reference: str) -> None:
 def test_ctrl_c_on_a_process_pool(tmp_path, reference):
     path = tmp_path / "results.sqlite"
     output = tmp_path / "out.json"
-    kept = interrupt(path, signal.SIGINT, "-j", "2", "-o", str(output))
+    kept = interrupt(path, signal.SIGINT, AFTER_POOL, "-j", "2", "-o", str(output))
     assert not output.exists()  # no partial output file
     assert [p.name for p in tmp_path.iterdir() if p.name.startswith(".covertree-")] == []
-    check_resumed(path, kept, reference)
+    check_resumed(path, kept, reference, AFTER_POOL)
 
 
 def test_killed_serial_run(tmp_path, reference):
     path = tmp_path / "results.sqlite"
-    kept = interrupt(path, signal.SIGKILL)
-    check_resumed(path, kept, reference)
+    kept = interrupt(path, signal.SIGKILL, AFTER_SERIAL)
+    check_resumed(path, kept, reference, AFTER_SERIAL)
