@@ -158,3 +158,101 @@ def brute_hurwitz(
     transitive, total = count_tuples(degree, target_genus, profiles)
     n = factorial(degree)
     return Fraction(transitive, n), Fraction(total, n)
+
+
+# --- the same count by states (for the cases too long to list one by one) -----
+
+
+def _orbit_label(d: int, gens: Sequence[tuple[int, ...]]) -> tuple[tuple[int, ...], ...]:
+    """The orbits of ``gens`` on ``0..d-1`` as a sorted tuple of sorted tuples."""
+    from covertree.symmetric.permutations import orbits
+
+    return tuple(orbits(d, gens))
+
+
+@lru_cache(maxsize=None)
+def _join(d: int, p: tuple, q: tuple) -> tuple:
+    """The finest partition coarser than both ``p`` and ``q``."""
+    parent = list(range(d))
+
+    def find(i: int) -> int:
+        while parent[i] != i:
+            i = parent[i]
+        return i
+
+    for block in p + q:
+        for x in block[1:]:
+            parent[find(x)] = find(block[0])
+    groups: dict[int, list[int]] = {}
+    for x in range(d):
+        groups.setdefault(find(x), []).append(x)
+    return tuple(sorted(tuple(v) for v in groups.values()))
+
+
+def count_tuples_by_states(
+    degree: int, target_genus: int, profiles: Sequence[Sequence[int]]
+) -> tuple[int, int]:
+    """``(transitive, all)`` like :func:`count_tuples`, but walking the tuples
+    ``s_1, s_2, ...`` one element at a time while keeping only, for each partial
+    tuple, its product and the orbits of the group it generates, with the number
+    of partial tuples in each such state.  Every tuple is still counted exactly
+    once (the states partition the tuples); no characters are used."""
+    if target_genus not in (0, 1):
+        raise ValueError("the state counter handles target genus 0 and 1 only")
+    g = _group(degree)
+    types = [tuple(sorted(mu, reverse=True)) for mu in profiles]
+    single = _orbit_label(degree, [])
+    states = {(g.identity, single): 1}
+    for t in types:
+        states = _step(g, states, g.classes[t])
+    full = ((tuple(range(degree))),)
+    if target_genus == 0:
+        finals = [(part, n) for (product, part), n in states.items() if product == g.identity]
+        return sum(n for part, n in finals if part == full), sum(n for _, n in finals)
+    pairs = _commutator_states(degree)
+    transitive = total = 0
+    for (product, part), n in states.items():
+        for sigma, m in pairs.get(g.inv[product], {}).items():
+            total += n * m
+            if _join(degree, part, sigma) == full:
+                transitive += n * m
+    return transitive, total
+
+
+def _step(g: _Group, states: dict, cls: list[int]) -> dict:
+    out: dict = {}
+    d, orbit = g.d, _element_orbits(g.d)
+    for (product, part), n in states.items():
+        for s in cls:
+            key = (g.mult[product][s], _join(d, part, orbit[s]))
+            out[key] = out.get(key, 0) + n
+    return out
+
+
+@lru_cache(maxsize=None)
+def _element_orbits(d: int) -> tuple:
+    g = _group(d)
+    return tuple(_orbit_label(d, [p]) for p in g.elements)
+
+
+@lru_cache(maxsize=None)
+def _commutator_states(d: int) -> dict[int, dict[tuple, int]]:
+    """``[a, b] -> {orbits of <a, b>: number of pairs}`` over all pairs."""
+    g = _group(d)
+    out: dict[int, dict[tuple, int]] = {}
+    for a, row in enumerate(g.commutator_solutions()):
+        for c, bs in row.items():
+            bucket = out.setdefault(c, {})
+            for b in bs:
+                part = _orbit_label(d, [g.elements[a], g.elements[b]])
+                bucket[part] = bucket.get(part, 0) + 1
+    return out
+
+
+def brute_hurwitz_by_states(
+    degree: int, target_genus: int, profiles: Sequence[Sequence[int]]
+) -> tuple[Fraction, Fraction]:
+    """``(connected, disconnected)`` Hurwitz numbers from :func:`count_tuples_by_states`."""
+    transitive, total = count_tuples_by_states(degree, target_genus, profiles)
+    n = factorial(degree)
+    return Fraction(transitive, n), Fraction(total, n)

@@ -2,10 +2,11 @@
 
 The brute-force comparison covers every problem with degree d <= 5, target genus
 h <= 1 and at most 5 branch points (profiles as a multiset, including unramified
-points 1^d and problems that fail Riemann-Hurwitz, which must give 0), except the
-cases whose enumeration exceeds BUDGET inner steps (d = 5, h = 1 with 3 to 5
-points, d = 4, h = 1 with 5 points, and two d = 5, h = 0 five-point cases); the
-list of skipped cases is computed in `_cases` below.
+points 1^d and problems that fail Riemann-Hurwitz, which must give 0).  The
+cases whose tuple-by-tuple enumeration exceeds BUDGET inner steps (d = 5, h = 1
+with 3 to 5 points, d = 4, h = 1 with 5 points, two d = 5, h = 0 five-point
+cases) are counted by the state walk of the same module, itself checked against
+the tuple-by-tuple enumeration on every smaller case.
 """
 
 from fractions import Fraction
@@ -23,7 +24,7 @@ from covertree.hurwitz.numbers import (
 )
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.symmetric.partitions import partitions_of, simple
-from tests.hurwitz.brute_force import brute_hurwitz, cost
+from tests.hurwitz.brute_force import brute_hurwitz, brute_hurwitz_by_states, cost
 
 BUDGET = 20_000
 
@@ -53,6 +54,17 @@ def test_against_brute_force(d, h):
         assert (connected_hurwitz(d, h, profiles), disconnected_hurwitz(d, h, profiles)) == expected, profiles
     if d <= 3:
         assert not skipped
+    for profiles in skipped:
+        expected = brute_hurwitz_by_states(d, h, profiles)
+        assert (connected_hurwitz(d, h, profiles), disconnected_hurwitz(d, h, profiles)) == expected, profiles
+
+
+@pytest.mark.parametrize("h", [0, 1])
+@pytest.mark.parametrize("d", range(1, 5))
+def test_state_walk_counts_the_same_tuples(d, h):
+    # the state walk used for the long cases against the plain enumeration
+    for profiles in _cases(d, h)[0]:
+        assert brute_hurwitz_by_states(d, h, profiles) == brute_hurwitz(d, h, profiles), profiles
 
 
 def test_skipped_cases_are_the_expected_ones():
