@@ -32,10 +32,11 @@ Fraction(2, 1)
 
 from __future__ import annotations
 
+from collections import Counter
 from collections.abc import Iterator, Sequence
 from dataclasses import dataclass
 from functools import lru_cache
-from math import prod
+from math import factorial, prod
 
 from covertree.graphs.dual_graph import DualGraph
 from covertree.gluing.structure import Glued, Port, canonical_code
@@ -127,7 +128,10 @@ class _Matcher:
             [p for p, s in enumerate(specs[v]) if s[0] == "half"] for v in self.vertex
         ]
         self.glued = Glued(self.vertex, self.pieces, self.halves, {})
-        self.sides = [self._side_ports(base, specs, k) for k in self._edge_order(base)]
+        self.sides, seen = [], set()
+        for k in self._edge_order(base):
+            self.sides.append(self._side_ports(base, specs, k, seen))
+            seen.update(base.edges[k])
         self.twins = self._twins()
         self.least = self._least_ports()
         self.touched = [0] * len(self.pieces)
@@ -138,7 +142,13 @@ class _Matcher:
         """Loops first: they break the most symmetry."""
         return sorted(range(base.n_edges), key=lambda k: (base.edges[k][0] != base.edges[k][1], k))
 
-    def _side_ports(self, base: DualGraph, specs: list, k: int) -> tuple[list, list, int]:
+    def _side_ports(self, base: DualGraph, specs: list, k: int, seen: set[int]) -> tuple[list, list, int, bool]:
+        """``(left, right, k, flipped)``: the ports over the two sides of edge
+        ``k``; left ports are matched in order, right ones are the candidates,
+        where the symmetry breaking acts, so the side whose pieces have more
+        symmetry goes right (``flipped`` when that is side 0).  Pieces over a
+        vertex met by an earlier edge are no longer pristine: that side counts
+        as having none."""
         ends = []
         for side in (0, 1):
             v = base.edges[k][side]
@@ -148,7 +158,21 @@ class _Matcher:
                 for i in range(len(self.pieces)) if self.vertex[i] == v
                 for c, cyc in enumerate(self.glued.port_cycles[i][p])
             ])
-        return ends[0], ends[1], k
+        u, w = base.edges[k]
+        flipped = u != w and self._symmetry(u, seen) > self._symmetry(w, seen)
+        return (ends[1], ends[0], k, True) if flipped else (ends[0], ends[1], k, False)
+
+    def _symmetry(self, v: int, seen: set[int]) -> int:
+        """Order of the group permuting identical pieces over ``v`` and acting by
+        their deck groups, ``prod m_P! |C(P)|^m_P`` (1 once ``v`` is in ``seen``)."""
+        if v in seen:
+            return 1
+        counts = Counter(p.gens for i, p in enumerate(self.pieces) if self.vertex[i] == v)
+        order = 1
+        for i, p in enumerate(self.pieces):
+            if self.vertex[i] == v:
+                order *= p.centraliser_order
+        return order * prod(factorial(m) for m in counts.values())
 
     def _twins(self) -> list[list[int]]:
         """Earlier pieces over the same vertex with the same permutations."""
@@ -176,7 +200,7 @@ class _Matcher:
         if e == len(self.sides):
             yield self.glued.partner
             return
-        left, right, _ = self.sides[e]
+        left, right = self.sides[e][:2]
         if t == len(left):
             yield from self._match(e + 1, 0)
             return
@@ -240,10 +264,10 @@ def _gluings(base: DualGraph, specs: list, choice: list[LocalCover]) -> Iterator
 
 def _record(m: _Matcher, code: tuple, aut: int, mult: int, edge_profiles: tuple) -> GluedCover:
     edges, over, index = [], [], []
-    for left, _right, k in m.sides:
+    for left, _right, k, flipped in m.sides:
         for port, length in left:
             other = m.glued.partner[port]
-            edges.append((port[0], other[0]))
+            edges.append((other[0], port[0]) if flipped else (port[0], other[0]))
             over.append(k)
             index.append(length)
     return GluedCover(
