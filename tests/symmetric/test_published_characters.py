@@ -4,7 +4,7 @@ The tables below were typed from memory of the published tables (Fulton-Harris,
 *Representation Theory: A First Course*, 1991, section 3.1, for S_5; G. James and
 A. Kerber, *The Representation Theory of the Symmetric Group*, 1981, appendix I,
 for S_6), with rows and columns relabelled by partitions.  The orthogonality
-tests in test_characters.py check them independently of this transcription.
+tests in test_characters.py check them independently of this typed copy.
 """
 
 from math import factorial
