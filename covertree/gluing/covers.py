@@ -85,12 +85,19 @@ def glued_covers(base: DualGraph, degree: int, profiles: Sequence[Sequence[int]]
     ``base`` (legs ``j`` of profile ``profiles[j-1]``), each class once, in a
     deterministic order, streamed as found."""
     specs = special_points(base)
+    for choice in balanced_choices(base, degree, profiles):
+        yield from _gluings(base, specs, choice)
+
+
+def balanced_choices(base: DualGraph, degree: int, profiles: Sequence[Sequence[int]]) -> Iterator[list[LocalCover]]:
+    """Every choice of one local cover per base vertex with equal profiles
+    across each node (the balancing condition)."""
+    specs = special_points(base)
     options = []
     for v, spec in enumerate(specs):
         prof = tuple(tuple(profiles[s[1] - 1]) if s[0] == "leg" else None for s in spec)
         options.append(_local_covers(degree, base.genera[v], prof))
-    for choice in _balanced_choices(base, specs, options):
-        yield from _gluings(base, specs, choice)
+    yield from _balanced_choices(base, specs, options)
 
 
 def _half_index(specs: list, v: int, k: int, side: int) -> int:

@@ -16,7 +16,7 @@ from collections import Counter
 
 import pytest
 
-from covertree.gluing.covers import _balanced_choices, _local_covers, _Matcher, glued_covers
+from covertree.gluing.covers import _Matcher, balanced_choices, glued_covers
 from covertree.gluing.structure import Glued, canonical_code
 from covertree.graphs.notation import parse_graph
 from covertree.monodromy.local import special_points
@@ -40,11 +40,7 @@ def structures(base_text, degree, profiles):
     """(Glued copy, code, |Aut|) for every connected matching the engine visits."""
     base = parse_graph(base_text)
     specs = special_points(base)
-    options = []
-    for v, spec in enumerate(specs):
-        prof = tuple(tuple(profiles[s[1] - 1]) if s[0] == "leg" else None for s in spec)
-        options.append(_local_covers(degree, base.genera[v], prof))
-    for choice in _balanced_choices(base, specs, options):
+    for choice in balanced_choices(base, degree, profiles):
         m = _Matcher(base, specs, choice)
         for partner in m.matchings():
             if not m.connected():
