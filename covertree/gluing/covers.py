@@ -139,6 +139,7 @@ class _Matcher:
         for k in self._edge_order(base):
             self.sides.append(self._side_ports(base, specs, k, seen))
             seen.update(base.edges[k])
+        self.one_each = len(self.pieces) == len(set(self.vertex))
         self.twins = self._twins()
         self.least = self._least_ports()
         self.touched = [0] * len(self.pieces)
@@ -238,6 +239,8 @@ class _Matcher:
             del self.glued.partner[a], self.glued.partner[b]
 
     def connected(self) -> bool:
+        if self.one_each:
+            return True  # one piece per vertex of a connected base
         parent = list(range(len(self.pieces)))
 
         def find(i: int) -> int:

@@ -60,25 +60,34 @@ class Glued:
 def canonical_code(glued: Glued) -> tuple[tuple, int]:
     """The canonical code of a connected glued structure and ``|Aut|``.
 
+    The code is ``(heads, links)``: the vertex and relabelled permutations of
+    every piece in the order reached, then every port's partner.  Heads are
+    known as soon as a piece is entered, so a branch whose heads already exceed
+    the best code found is cut (it cannot reach the least code, and no
+    labelling attaining the least code is ever cut).
+
     Returns
     -------
     (code, automorphisms)
-        ``code`` is a tuple of ints; equal codes mean isomorphic covers.
+        ``code`` is a tuple; equal codes mean isomorphic covers.
     """
     best: list = [None, 0]
     for i in _start_pieces(glued):
-        state = _Walk(glued, [i], [list(range(glued.pieces[i].degree))], [])
-        state.run(best)
+        _Walk(glued, i).run(best)
     return best[0], best[1]
 
 
 def _start_pieces(glued: Glued) -> list[int]:
-    """Pieces over the least base vertex with the least permutations: an
-    isomorphism-invariant set to start from."""
+    """The pieces of one class over the least base vertex, the class with the
+    fewest start sheets (then the least permutations): an isomorphism-invariant
+    set to start from."""
     v0 = min(glued.vertex)
-    cands = [i for i, v in enumerate(glued.vertex) if v == v0]
-    least = min(glued.pieces[i].gens for i in cands)
-    return [i for i in cands if glued.pieces[i].gens == least]
+    classes: dict[tuple, list[int]] = {}
+    for i, v in enumerate(glued.vertex):
+        if v == v0:
+            classes.setdefault(glued.pieces[i].gens, []).append(i)
+    gens = min(classes, key=lambda g: (len(classes[g]) * len(g[0]), g))
+    return classes[gens]
 
 
 @lru_cache(maxsize=65536)
@@ -108,10 +117,16 @@ def _view(piece: Piece, halves: tuple[int, ...], entry: int) -> tuple[tuple, dic
 
 
 class _Walk:
-    """Depth-first search over the entry choices of one start piece."""
+    """Depth-first search over the entry choices from one start piece."""
 
-    def __init__(self, glued: Glued, queue: list[int], cands: list[list[int]], orders: list) -> None:
-        self.g, self.queue, self.cands, self.views = glued, queue, cands, orders
+    def __init__(self, glued: Glued, start: int) -> None:
+        self.g = glued
+        self.queue = [start]
+        self.cands = [list(range(glued.pieces[start].degree))]
+        self.reached = [False] * len(glued.pieces)
+        self.reached[start] = True
+        self.views: list[tuple] = []
+        self.heads: list[tuple] = []
         self.halves = [tuple(h) for h in glued.halves]
 
     def run(self, best: list) -> None:
@@ -124,37 +139,42 @@ class _Walk:
         j = self.queue[t]
         for entry in self.cands[t]:
             view = _view(self.g.pieces[j], self.halves[j], entry)
-            self.views.append(view)
-            added = self._reach(j, view[2])
-            self.run(best)
-            del self.queue[len(self.queue) - added:]
-            del self.cands[len(self.cands) - added:]
-            self.views.pop()
+            self.heads.append((self.g.vertex[j], view[0]))
+            if best[0] is None or tuple(self.heads) <= best[0][0][:t + 1]:
+                self.views.append(view)
+                added = self._reach(j, view[2])
+                self.run(best)
+                for j2 in self.queue[len(self.queue) - added:]:
+                    self.reached[j2] = False
+                del self.queue[len(self.queue) - added:]
+                del self.cands[len(self.cands) - added:]
+                self.views.pop()
+            self.heads.pop()
 
     def _reach(self, j: int, scan: tuple) -> int:
         """Append the pieces first reached from piece ``j``; return how many."""
         added = 0
-        partner, queue = self.g.partner, self.queue
+        partner, reached = self.g.partner, self.reached
         for p, c in scan:
             j2, q, c2 = partner[(j, p, c)]
-            if j2 not in queue:
-                queue.append(j2)
-                self.cands.append(list(self.g.port_cycles[j2][q][c2]))
+            if not reached[j2]:
+                reached[j2] = True
+                self.queue.append(j2)
+                self.cands.append(self.g.port_cycles[j2][q][c2])
                 added += 1
         return added
 
     def _leaf(self, best: list) -> None:
         rank = {j: t for t, j in enumerate(self.queue)}
-        partner, vertex = self.g.partner, self.g.vertex
-        code: list[int] = []
-        for j, (head, _least, scan) in zip(self.queue, self.views):
-            code.append(vertex[j])
-            code += head
+        partner, views = self.g.partner, self.views
+        links: list[int] = []
+        for j, (_head, _least, scan) in zip(self.queue, views):
             for p, c in scan:
                 j2, q, c2 = partner[(j, p, c)]
-                code += (rank[j2], q, self.views[rank[j2]][1][(q, c2)])
-        code_t = tuple(code)
-        if best[0] is None or code_t < best[0]:
-            best[0], best[1] = code_t, 1
-        elif code_t == best[0]:
+                r = rank[j2]
+                links += (r, q, views[r][1][(q, c2)])
+        code = (tuple(self.heads), tuple(links))
+        if best[0] is None or code < best[0]:
+            best[0], best[1] = code, 1
+        elif code == best[0]:
             best[1] += 1
