@@ -249,9 +249,15 @@ class _Matcher:
                 i = parent[i]
             return i
 
+        joins, needed = 0, len(self.pieces) - 1
         for a, b in self.glued.partner.items():
-            parent[find(a[0])] = find(b[0])
-        return len({find(i) for i in range(len(self.pieces))}) == 1
+            ra, rb = find(a[0]), find(b[0])
+            if ra != rb:
+                parent[ra] = rb
+                joins += 1
+                if joins == needed:
+                    return True
+        return False
 
 
 def _gluings(base: DualGraph, specs: list, choice: list[LocalCover]) -> Iterator[GluedCover]:
