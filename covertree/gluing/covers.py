@@ -39,7 +39,7 @@ from functools import lru_cache
 from math import factorial, prod
 
 from covertree.graphs.dual_graph import DualGraph
-from covertree.gluing.structure import Glued, Port, canonical_code
+from covertree.gluing.structure import Glued, Port, canonical_code, least_cycles
 from covertree.monodromy.local import LocalCover, local_covers, special_points
 from covertree.monodromy.pieces import Piece
 
@@ -191,15 +191,8 @@ class _Matcher:
 
     def _least_ports(self) -> set[Port]:
         """Ports least in their orbit under their piece's deck group."""
-        out = set()
-        for j, piece in enumerate(self.pieces):
-            for p in self.halves[j]:
-                cyc = self.glued.port_cycles[j][p]
-                where = {x: c for c, cy in enumerate(cyc) for x in cy}
-                for c, cy in enumerate(cyc):
-                    if c == min(where[g[cy[0]]] for g in piece.centraliser):
-                        out.add((j, p, c))
-        return out
+        return {(j, p, c) for j, piece in enumerate(self.pieces)
+                for p in self.halves[j] for c in least_cycles(piece, p)}
 
     def matchings(self) -> Iterator[dict[Port, Port]]:
         yield from self._match(0, 0)

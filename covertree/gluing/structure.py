@@ -52,9 +52,24 @@ class Glued:
 
     def __post_init__(self) -> None:
         self.port_cycles = [
-            {p: cycles(piece.special(p)) for p in halves}
+            {p: piece_cycles(piece, p) for p in halves}
             for piece, halves in zip(self.pieces, self.halves)
         ]
+
+
+@lru_cache(maxsize=65536)
+def piece_cycles(piece: Piece, p: int) -> tuple[tuple[int, ...], ...]:
+    """The cycles of ``s_p`` of a piece (its ports at special point ``p``)."""
+    return tuple(cycles(piece.special(p)))
+
+
+@lru_cache(maxsize=65536)
+def least_cycles(piece: Piece, p: int) -> tuple[int, ...]:
+    """Indices of the cycles of ``s_p`` that are least in their orbit under the
+    piece's deck group."""
+    cyc = piece_cycles(piece, p)
+    where = {x: c for c, cy in enumerate(cyc) for x in cy}
+    return tuple(c for c, cy in enumerate(cyc) if c == min(where[g[cy[0]]] for g in piece.centraliser))
 
 
 def canonical_code(glued: Glued) -> tuple[tuple, int]:
