@@ -18,7 +18,7 @@ codimension at most 1:
 
 from __future__ import annotations
 
-from collections.abc import Iterator
+from collections.abc import Iterable, Iterator
 from dataclasses import dataclass
 from fractions import Fraction
 
@@ -52,10 +52,20 @@ class StratumResult:
 
     def by_source(self) -> list[tuple[DualGraph, Fraction]]:
         """Summed weight per stable source stratum, sorted canonically."""
-        tally: dict[DualGraph, Fraction] = {}
-        for c in self.covers:
-            tally[c.stable_source] = tally.get(c.stable_source, Fraction(0)) + c.weight
-        return sorted(tally.items(), key=lambda kv: (kv[0].codim, kv[0].key))
+        return weight_by_graph((c.stable_source, c.weight) for c in self.covers)
+
+
+def weight_by_graph(items: Iterable[tuple[DualGraph, Fraction]]) -> list[tuple[DualGraph, Fraction]]:
+    """Sum the weights of equal graphs; sorted by ``(codim, key)``.
+
+    >>> g = DualGraph([2], [])
+    >>> weight_by_graph([(g, Fraction(1, 2)), (g, Fraction(1, 2))])
+    [(<DualGraph g2>, Fraction(1, 1))]
+    """
+    tally: dict[DualGraph, Fraction] = {}
+    for graph, weight in items:
+        tally[graph] = tally.get(graph, Fraction(0)) + weight
+    return sorted(tally.items(), key=lambda kv: (kv[0].codim, kv[0].key))
 
 
 @dataclass(frozen=True)

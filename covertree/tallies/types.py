@@ -115,7 +115,7 @@ from fractions import Fraction
 from functools import lru_cache
 from math import factorial, lcm, prod
 
-from covertree.catalogue.catalogue import problem_hurwitz, select_strata
+from covertree.catalogue.catalogue import problem_hurwitz, select_strata, weight_by_graph
 from covertree.catalogue.covers import make_graph
 from covertree.errors import GraphError, IdentityError
 from covertree.graphs.canonical import _certify
@@ -210,7 +210,7 @@ class TypeTally:
     def by_source(self) -> list[tuple[DualGraph, Fraction]]:
         """Summed weight per stable source stratum, sorted canonically (as
         :meth:`covertree.catalogue.catalogue.StratumResult.by_source`)."""
-        return _sorted_tally((e.stable_source, e.weight) for e in self.entries)
+        return weight_by_graph((e.stable_source, e.weight) for e in self.entries)
 
     def by_profiles(self) -> list[tuple[tuple[Profile, ...], Fraction]]:
         """Summed weight per tuple of node profiles (base edge order), sorted."""
@@ -250,13 +250,6 @@ class TypeTally:
             orders = [(n, sum(big_l // index[s] for s in chain)) for n, chain in enumerate(e.stabilised.chains)]
             out.append((e, Fraction(e.weight, big_l), orders))
         return out
-
-
-def _sorted_tally(items) -> list[tuple[DualGraph, Fraction]]:
-    tally: dict[DualGraph, Fraction] = {}
-    for graph, w in items:
-        tally[graph] = tally.get(graph, Fraction(0)) + w
-    return sorted(tally.items(), key=lambda kv: (kv[0].codim, kv[0].key))
 
 
 @dataclass(frozen=True)

@@ -155,7 +155,11 @@ def brute_hurwitz(
     degree: int, target_genus: int, profiles: Sequence[Sequence[int]]
 ) -> tuple[Fraction, Fraction]:
     """``(connected, disconnected)`` Hurwitz numbers by enumeration."""
-    transitive, total = count_tuples(degree, target_genus, profiles)
+    return _per_labelling(degree, *count_tuples(degree, target_genus, profiles))
+
+
+def _per_labelling(degree: int, transitive: int, total: int) -> tuple[Fraction, Fraction]:
+    """Tuple counts divided by ``d!``: (connected, disconnected) Hurwitz numbers."""
     n = factorial(degree)
     return Fraction(transitive, n), Fraction(total, n)
 
@@ -253,6 +257,4 @@ def brute_hurwitz_by_states(
     degree: int, target_genus: int, profiles: Sequence[Sequence[int]]
 ) -> tuple[Fraction, Fraction]:
     """``(connected, disconnected)`` Hurwitz numbers from :func:`count_tuples_by_states`."""
-    transitive, total = count_tuples_by_states(degree, target_genus, profiles)
-    n = factorial(degree)
-    return Fraction(transitive, n), Fraction(total, n)
+    return _per_labelling(degree, *count_tuples_by_states(degree, target_genus, profiles))
