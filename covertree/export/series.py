@@ -33,7 +33,7 @@ Examples
 >>> [t["value"] for t in doc["terms"]], doc["identification"]["form"], doc["identification"]["checked"]
 (['1', '3/2', '4/3', '7/4', '6/5', '2'], '(1 - E2)/24', 5)
 >>> print(series_to_csv(s).splitlines()[2])
-2,3/2,3,2 1^0
+2,3/2,3,"(1,1)"
 """
 
 from __future__ import annotations
