@@ -43,9 +43,9 @@ def main() -> None:
 
 
 def _register() -> None:
-    from covertree.cli import catalogue, count, draw, pullback, strata, sweep
+    from covertree.cli import catalogue, count, draw, pullback, series, strata, sweep
 
-    for module in (count, strata, catalogue, pullback, draw, sweep):
+    for module in (count, strata, catalogue, pullback, draw, sweep, series):
         for command in getattr(module, "commands", (module.command,)):
             main.add_command(command)
 
