@@ -121,3 +121,15 @@ def test_the_public_names_are_listed_and_load_lazily():
     assert "generating_series" in ct.__all__ and "graph_to_networkx" in dir(ct)
     with pytest.raises(AttributeError, match="no attribute 'nope'"):
         ct.nope
+
+
+def test_the_readme_session_runs():
+    import doctest
+    from pathlib import Path
+
+    text = (Path(__file__).parents[1] / "README.md").read_text()
+    block = text.split("## From Python", 1)[1].split("```python", 1)[1].split("```", 1)[0]
+    test = doctest.DocTestParser().get_doctest(block, {}, "README From Python", "README.md", 0)
+    runner = doctest.DocTestRunner(optionflags=doctest.ELLIPSIS)
+    runner.run(test)
+    assert runner.summarize(verbose=False).failed == 0 and test.examples
