@@ -1,0 +1,130 @@
+r"""What one admissible cover contributes along each node of its base.
+
+Let ``f`` be a cover over a fixed curve of a base stratum ``T`` with nodes
+``q``.  Near the stratum of ``f`` the normalised space of admissible covers has
+one smooth branch per choice of branches at every node (``prod_q prod_i
+e_{q,i} / L_q`` of them, ``L_q = lcm_i e_{q,i}``), with a coordinate ``u_q``
+per node, ``t_q = u_q^{L_q}`` (THEORY of the catalogue:
+:mod:`covertree.catalogue.local_structure`).  A source node ``x`` over ``q``
+with index ``e_x`` is smoothed by ``u_q^{L_q/e_x}``; a node ``n`` of the
+stabilised source is smoothed by the product of the parameters of the chain of
+source nodes it replaces.  Hence, near the stratum, as divisors,
+
+- the locus where the prestable source has a node, counted with the order of
+  its local equation ``xy = u^m``, is ``sum_q (sum_{x over q} L_q/e_x) [u_q = 0]``
+  (:attr:`EdgeData.all_nodes`);
+- ``src^* delta_j = sum_q (sum over stable nodes n of type delta_j of
+  sum_{x in chain(n), x over q} L_q/e_x) [u_q = 0]`` (:attr:`EdgeData.deltas`).
+
+The type of a stable node (non-separating, or separating off genus ``j``) does
+not change when other nodes are smoothed, so these coefficients are those of
+the boundary divisor ``u_q = 0`` itself, the same at every stratum it contains.
+
+The covers come from either engine as ``(genera, edges, weight)``: source
+components, source nodes ``(i, j, q, e)`` (component over side 0 of base edge
+``q``, component over side 1, index) and ``weight = mult/|Aut|`` summed over
+the covers with these data.  The weight of the strata of the cover space,
+``#branches/|Aut f| = mult / (|Aut f| prod_q L_q)``, is :attr:`CoverKey.weight`
+after grouping.
+
+Examples
+--------
+Genus-2 double covers of ``P^1`` over the ``2|4`` divisor: the two unramified
+nodes form a rational bridge, one non-separating stable node smoothed to order
+2; the prestable source has two nodes of order 1.
+
+>>> from covertree.catalogue.covers import stratum_covers
+>>> from covertree.graphs.notation import parse_graph
+>>> [c] = stratum_covers(parse_graph("g0{1,2}, g0{3,4,5,6} | 0-1"), 2, [(2,)] * 6)
+>>> data = edge_data(c.raw.source_genera, cover_edges(c), 1, 2)
+>>> data
+(EdgeData(lcm=1, all_nodes=2, deltas=(2, 0)),)
+"""
+
+from __future__ import annotations
+
+from collections.abc import Iterable, Sequence
+from dataclasses import dataclass
+from fractions import Fraction
+from math import lcm, prod
+
+from covertree.catalogue.local_structure import node_type
+from covertree.errors import IdentityError
+from covertree.stabilisation.stabilise import stabilise
+
+__all__ = ["EdgeData", "CoverKey", "edge_data", "cover_edges", "grouped"]
+
+SourceEdge = tuple[int, int, int, int]
+
+
+@dataclass(frozen=True, order=True)
+class EdgeData:
+    """The contribution of a cover along one base node ``q``.
+
+    Attributes
+    ----------
+    lcm : int
+        ``L_q``, the ramification of the branch map along ``u_q = 0``.
+    all_nodes : int
+        ``sum_{x over q} L_q/e_x``: order of the node locus of the prestable source.
+    deltas : tuple of int
+        Coefficient of ``[u_q = 0]`` in ``src^* delta_j`` for ``j = 0 .. G//2``
+        (empty when the source genus is below 2).
+    """
+
+    lcm: int
+    all_nodes: int
+    deltas: tuple[int, ...]
+
+
+@dataclass(frozen=True)
+class CoverKey:
+    """Covers over one base stratum with equal :class:`EdgeData` on every node,
+    with the summed stratum weight ``sum #branches/|Aut f|``."""
+
+    edges: tuple[EdgeData, ...]
+    weight: Fraction
+
+
+def cover_edges(cover) -> tuple[SourceEdge, ...]:
+    """``(i, j, q, e)`` per source node of a listed :class:`~covertree.catalogue.covers.Cover`."""
+    raw = cover.raw
+    return tuple((a, b, q, e) for (a, b), q, e in zip(raw.source_edges, raw.source_edge_over, raw.source_edge_index))
+
+
+def edge_data(genera: Sequence[int], edges: Sequence[SourceEdge], n_base_edges: int,
+              genus: int) -> tuple[EdgeData, ...]:
+    """Per base node, the data of the module docstring for one source."""
+    lcms = [1] * n_base_edges
+    for _, _, q, e in edges:
+        lcms[q] = lcm(lcms[q], e)
+    all_nodes = [0] * n_base_edges
+    for _, _, q, e in edges:
+        all_nodes[q] += lcms[q] // e
+    n_types = genus // 2 + 1 if genus >= 2 else 0
+    deltas = [[0] * n_types for _ in range(n_base_edges)]
+    if n_types:
+        stab = stabilise(genera, [(a, b) for a, b, _, _ in edges])
+        for n, chain in enumerate(stab.chains):
+            j = _type_index(node_type(stab.genera, stab.edges, n))
+            for s in chain:
+                _, _, q, e = edges[s]
+                deltas[q][j] += lcms[q] // e
+    return tuple(EdgeData(lcms[q], all_nodes[q], tuple(deltas[q])) for q in range(n_base_edges))
+
+
+def _type_index(kind: str | None) -> int:
+    if kind is None or not kind.startswith("delta_"):  # pragma: no cover - a bug
+        raise IdentityError(f"stable node of unknown type {kind!r}")
+    return int(kind[len("delta_"):])
+
+
+def grouped(items: Iterable[tuple[Sequence[int], Sequence[SourceEdge], Fraction]], n_base_edges: int,
+            genus: int) -> tuple[CoverKey, ...]:
+    """Group ``(genera, edges, mult/|Aut| weight)`` items by their edge data;
+    weights become stratum weights (divided by ``prod_q L_q``); sorted."""
+    tally: dict[tuple[EdgeData, ...], Fraction] = {}
+    for genera, edges, weight in items:
+        key = edge_data(genera, edges, n_base_edges, genus)
+        tally[key] = tally.get(key, Fraction(0)) + Fraction(weight) / prod(d.lcm for d in key)
+    return tuple(CoverKey(k, w) for k, w in sorted(tally.items()))
