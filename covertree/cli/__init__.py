@@ -43,10 +43,10 @@ def main() -> None:
 
 
 def _register() -> None:
-    from covertree.cli import catalogue, count, draw, pullback, series, strata, sweep
+    from covertree.cli import catalogue, count, draw, locus, pullback, series, strata, sweep
 
-    for module in (count, strata, catalogue, pullback, draw, sweep, series):
-        for command in getattr(module, "commands", (module.command,)):
+    for module in (count, strata, catalogue, pullback, locus, draw, sweep, series):
+        for command in getattr(module, "commands", None) or (module.command,):
             main.add_command(command)
 
 

@@ -1,0 +1,106 @@
+r"""JSON, LaTeX and table rows for locus classes and cover-space integrals.
+
+The JSON documents are contracts (keys are only ever added).  ``locus``::
+
+    {"problem": {"genus", "target_genus", "degree", "profiles"},
+     "dimension": N,
+     "class": {"lambda": "p/q", "delta_0": "p/q", ...},
+     "class_unordered": {... same keys ...},
+     "symmetry": n,
+     "tests": [{"monomial": "...", "cover_space": "p/q", "from_class": "p/q"}, ...],
+     "consistent": true,
+     "family": "p/q", "family_unordered": "p/q"}   (the last two only with a family)
+
+``class`` is the class of the labelled problem, ``class_unordered`` divided by
+``symmetry`` (the permutations of branch points with equal profiles); genus 2
+has the keys ``delta_0, delta_1`` only.  ``integral``::
+
+    {"problem": {...}, "source": "...", "target": "...", "value": "p/q"}
+
+Examples
+--------
+>>> from covertree.hurwitz.problem import HurwitzProblem
+>>> from covertree.locus.divisor import locus_class
+>>> c = locus_class(HurwitzProblem.build(2, 1, genus=2))
+>>> print(locus_to_latex(c))
+\[ [\overline{\mathcal{H}}] = 6\,\delta_{0} + 24\,\delta_{1}, \qquad \tfrac{1}{2}\,[\overline{\mathcal{H}}] = 3\,\delta_{0} + 12\,\delta_{1} \]
+"""
+
+from __future__ import annotations
+
+import json
+from fractions import Fraction
+
+from covertree.export.rational import latex_rational, rational_str
+from covertree.locus.divisor import LocusClass
+from covertree.locus.integrals import CoverSpaceIntegral
+
+__all__ = ["locus_to_dict", "locus_to_json", "locus_to_latex", "class_text", "integral_to_dict", "integral_to_json"]
+
+
+def locus_to_dict(result: LocusClass, family: dict[str, Fraction] | None = None) -> dict:
+    """The ``locus`` JSON document as a dict; ``family`` holds the family numbers."""
+    doc = {
+        "problem": result.problem.to_dict(),
+        "dimension": result.dimension,
+        "class": {k: rational_str(v) for k, v in result.labelled.items()},
+        "class_unordered": {k: rational_str(v) for k, v in result.unordered.items()},
+        "symmetry": result.symmetry,
+        "tests": [{"monomial": t.monomial.notation, "cover_space": rational_str(t.cover_space),
+                   "from_class": rational_str(t.from_class)} for t in result.tests],
+        "consistent": result.consistent,
+    }
+    if family is not None:
+        doc["family"] = rational_str(family["labelled"])
+        doc["family_unordered"] = rational_str(family["unordered"])
+    return doc
+
+
+def locus_to_json(result: LocusClass, family: dict[str, Fraction] | None = None) -> str:
+    return json.dumps(locus_to_dict(result, family), indent=1)
+
+
+def class_text(coefficients: dict[str, Fraction], latex: bool = False) -> str:
+    """``9 lambda - delta_0 - 3 delta_1`` (or its LaTeX form); ``0`` when empty.
+
+    >>> class_text({"lambda": Fraction(9), "delta_0": Fraction(-1), "delta_1": Fraction(0)})
+    '9 lambda - delta_0'
+    """
+    terms = []
+    for name, value in coefficients.items():
+        if not value:
+            continue
+        symbol = _latex_symbol(name) if latex else name
+        size = abs(value)
+        number = latex_rational(size) if latex else rational_str(size)
+        body = symbol if size == 1 else (rf"{number}\,{symbol}" if latex else f"{number} {symbol}")
+        terms.append(("-" if value < 0 else "+", body))
+    if not terms:
+        return "0"
+    first_sign, first = terms[0]
+    text = ("-" if first_sign == "-" else "") + first
+    return text + "".join(f" {s} {b}" for s, b in terms[1:])
+
+
+def _latex_symbol(name: str) -> str:
+    if name == "lambda":
+        return r"\lambda"
+    return rf"\delta_{{{name.split('_')[1]}}}"
+
+
+def locus_to_latex(result: LocusClass) -> str:
+    """One displayed equation: the labelled class and the unordered one."""
+    lab = class_text(result.labelled, latex=True)
+    unordered = class_text(result.unordered, latex=True)
+    factor = latex_rational(Fraction(1, result.symmetry)).replace(r"\frac", r"\tfrac")
+    return (rf"\[ [\overline{{\mathcal{{H}}}}] = {lab}, \qquad "
+            rf"{factor}\,[\overline{{\mathcal{{H}}}}] = {unordered} \]")
+
+
+def integral_to_dict(result: CoverSpaceIntegral) -> dict:
+    return {"problem": result.problem.to_dict(), "source": result.source.notation,
+            "target": result.target.notation, "value": rational_str(result.value)}
+
+
+def integral_to_json(result: CoverSpaceIntegral) -> str:
+    return json.dumps(integral_to_dict(result), indent=1)
