@@ -92,3 +92,18 @@ def test_target_psi_integrals_are_hurwitz_number_times_base_integrals():
     h = problem_hurwitz(p)
     assert integral(p, "", "psi_1 psi_2") == h * Fraction(1, 24)
     assert integral(p, "", "kappa^2") == h * psi_kappa_integral(1, (0, 0), 2)
+
+
+def test_degree_one_cover_space_is_mbar_g():
+    # Two independent routes to int_{Mbar_G}: the cover-space sum over strata with surjective node
+    # colourings for the degree-1 problem, and recursive restriction to boundary divisors (intersection.mbar).
+    from covertree.intersection.mbar import mbar_integral
+
+    for g in (2, 3):
+        problem = HurwitzProblem.build(1, g, genus=g)
+        names = ["lambda"] + [f"delta_{j}" for j in range(g // 2 + 1)]
+        for combo in combinations_with_replacement(names, 3 * g - 3):
+            powers = {}
+            for name in combo:
+                powers[name] = powers.get(name, 0) + 1
+            assert integral(problem, " ".join(combo)) == mbar_integral(g, 0, powers), combo
