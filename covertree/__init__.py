@@ -19,7 +19,8 @@ MODEL_VERSION = 1
 _PUBLIC = {
     **{name: "covertree.api" for name in (
         "hurwitz_problem", "hurwitz_count", "boundary_strata", "cover_catalogue", "pullback_table",
-        "generating_series", "Counts", "StrataList", "CatalogueResult", "PullbackResult", "SeriesResult", "Result")},
+        "generating_series", "locus_class", "cover_integral", "Counts", "StrataList", "CatalogueResult",
+        "PullbackResult", "SeriesResult", "LocusResult", "IntegralResult", "Result")},
     **{name: "covertree.interop.nxgraphs" for name in (
         "graph_to_networkx", "graph_from_networkx", "stratum_to_networkx", "stratum_from_networkx",
         "cover_to_networkx", "cover_from_networkx", "CoverMap", "networkx_automorphisms", "networkx_isomorphic")},

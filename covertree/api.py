@@ -28,9 +28,9 @@ Fraction(6, 1)
 Hooks
 -----
 Results derive from :class:`Result` (``to_dict``, ``to_json``, ``_table`` for
-the HTML view); a new computation (for instance the class of a Hurwitz locus
-or integrals over the space of admissible covers) is one more function here
-returning a new :class:`Result` subclass, exported from ``covertree``.  A new
+the HTML view); a new computation is one more function here
+returning a new :class:`Result` subclass, exported from ``covertree`` (as
+:func:`locus_class` and :func:`cover_integral` are).  A new
 per-degree number for :func:`generating_series` is one more entry of
 :data:`covertree.series.quantities.KINDS` (or any function of a problem passed
 as ``evaluate``).
@@ -52,6 +52,7 @@ from covertree.export.catalogue import catalogue_to_csv, catalogue_to_dict, cata
 from covertree.export.counts import counts_csv, counts_json, counts_latex, counts_record
 from covertree.export.graphs import strata_csv, strata_json, strata_latex
 from covertree.export.pullback import pullback_to_csv, pullback_to_dict, pullback_to_json, pullback_to_latex
+from covertree.export.locus import class_text, integral_to_json, locus_to_json, locus_to_latex
 from covertree.export.rational import latex_rational, rational_str
 from covertree.export.series import series_rows, series_summary, series_to_csv, series_to_dict, series_to_json, \
     series_to_latex
@@ -61,6 +62,11 @@ from covertree.graphs.enumerate import stable_graphs
 from covertree.graphs.notation import parse_graph
 from covertree.hurwitz.numbers import hurwitz_numbers
 from covertree.hurwitz.problem import HurwitzProblem
+from covertree.locus.divisor import LocusClass, family_number
+from covertree.locus.divisor import locus_class as _locus_class
+from covertree.locus.integrals import CoverSpaceIntegral
+from covertree.locus.integrals import cover_space_integral as _cover_space_integral
+from covertree.locus.monomial import Monomial
 from covertree.series.family import Family, ProfileShape
 from covertree.series.generating import DegreeSeries, degree_series
 from covertree.series.quantities import Quantity
@@ -68,8 +74,9 @@ from covertree.tallies.pullback import pullback_from_types
 from covertree.tallies.types import TallyCatalogue, tally_catalogue
 
 __all__ = [
-    "CatalogueResult", "Counts", "PullbackResult", "Result", "SeriesResult", "StrataList",
-    "boundary_strata", "cover_catalogue", "generating_series", "hurwitz_count", "hurwitz_problem", "pullback_table",
+    "CatalogueResult", "Counts", "IntegralResult", "LocusResult", "PullbackResult", "Result", "SeriesResult",
+    "StrataList", "boundary_strata", "cover_catalogue", "cover_integral", "generating_series", "hurwitz_count",
+    "hurwitz_problem", "locus_class", "pullback_table",
 ]
 
 ENGINES = ("list", "types")
@@ -460,3 +467,135 @@ def generating_series(genus: int | None, target_genus: int, max_degree: int, wei
     family = Family(genus, target_genus, tuple(ProfileShape.parse(s) for s in shapes))
     what = Quantity(quantity, stratum, source, coefficient, engine)
     return SeriesResult(degree_series(family, what, max_degree, weight, mixed, constant, q_derivative, evaluate))
+
+
+# ---------------------------------------------------------------------------
+# Classes of Hurwitz loci and integrals over the cover space
+# ---------------------------------------------------------------------------
+
+
+@dataclass(frozen=True)
+class LocusResult(Result):
+    """The class of a divisorial Hurwitz locus in ``Mbar_G`` (``covertree
+    locus``); ``data`` is the library's :class:`~covertree.locus.divisor.LocusClass`
+    (``labelled``, ``unordered``, ``symmetry``, ``tests``), ``family`` the
+    intersection numbers with a family when one was given.
+
+    Examples
+    --------
+    >>> r = locus_class(hurwitz_problem(2, 1, genus=2), family={"delta_0": 10, "delta_1": 0})
+    >>> r.unordered, r.family
+    ({'delta_0': Fraction(3, 1), 'delta_1': Fraction(12, 1)}, {'labelled': Fraction(60, 1), 'unordered': Fraction(30, 1)})
+    >>> r._repr_latex_()[:46]
+    '$[\\\\overline{\\\\mathcal{H}}] = 6\\\\,\\\\delta_{0} + 24'
+    """
+
+    data: LocusClass
+    family: dict[str, Fraction] | None = None
+
+    @property
+    def labelled(self) -> dict[str, Fraction]:
+        """The class for labelled branch points, by basis name."""
+        return dict(self.data.labelled)
+
+    @property
+    def unordered(self) -> dict[str, Fraction]:
+        """The class divided by the symmetry of the profiles."""
+        return dict(self.data.unordered)
+
+    @property
+    def consistent(self) -> bool:
+        """Whether every test integral is reproduced (always, or it raised)."""
+        return self.data.consistent
+
+    def to_json(self) -> str:
+        return locus_to_json(self.data, self.family)
+
+    def to_latex(self) -> str:
+        return locus_to_latex(self.data)
+
+    def _table(self):
+        p = self.data.problem
+        rows = [("labelled", class_text(self.data.labelled)),
+                (f"unordered (/{self.data.symmetry})", class_text(self.data.unordered))]
+        if self.family is not None:
+            rows += [("family: labelled", rational_str(self.family["labelled"])),
+                     ("family: unordered", rational_str(self.family["unordered"]))]
+        return (f"Class of the locus in Mbar_{p.genus}: {_problem_title(p)}; {len(self.data.tests)} test monomials",
+                ("branch points", "class"), rows)
+
+    def _repr_latex_(self) -> str:
+        return "$" + locus_to_latex(self.data)[3:-3] + "$"
+
+
+def locus_class(problem: HurwitzProblem, engine: str = "types",
+                family: dict[str, Fraction | int] | None = None) -> LocusResult:
+    """The class ``src_*[Adm]`` of the Hurwitz locus in ``lambda, delta_0, ...``
+    when the cover space has dimension ``3G - 4``, solved from the integrals of
+    every test monomial (an overdetermined, checked system); with ``family``
+    (degrees of ``lambda`` and the ``delta_j``) also its number on that family.
+
+    Raises
+    ------
+    ProblemError
+        When the locus is not a divisor or ``G < 2``.
+    InputError
+        For an unknown engine or a bad family.
+    IdentityError
+        When the system is inconsistent (a bug).
+    """
+    _engine(engine)
+    data = _locus_class(problem, engine)
+    numbers = None
+    if family is not None:
+        degrees = {k: Fraction(v) for k, v in family.items()}
+        numbers = {"labelled": family_number(data, degrees), "unordered": family_number(data, degrees, True)}
+    return LocusResult(data, numbers)
+
+
+@dataclass(frozen=True)
+class IntegralResult(Result):
+    """An integral over the space of admissible covers (``covertree
+    integral``); ``data`` is the library's ``CoverSpaceIntegral``.
+
+    Examples
+    --------
+    >>> r = cover_integral(hurwitz_problem(2, 0, genus=2), source="lambda^3")
+    >>> r.value, r.to_dict()["source"]   # 6! labellings times 1/2880 (Mumford)
+    (Fraction(1, 4), 'lambda^3')
+    """
+
+    data: CoverSpaceIntegral
+
+    @property
+    def value(self) -> Fraction:
+        return self.data.value
+
+    def to_json(self) -> str:
+        return integral_to_json(self.data)
+
+    def _table(self):
+        d = self.data
+        return (f"Integral over the cover space: {_problem_title(d.problem)}", ("source", "target", "value"),
+                [(d.source.notation or "1", d.target.notation or "1", rational_str(d.value))])
+
+    def _repr_latex_(self) -> str:
+        return rf"$\int_{{\overline{{\mathrm{{Adm}}}}}} = {latex_rational(self.value)}$"
+
+
+def cover_integral(problem: HurwitzProblem, source: str = "", target: str = "", engine: str = "types"
+                   ) -> IntegralResult:
+    """``\\int_{Adm} src^*(source) br^*(target)`` (labelled branch points,
+    covers weighted ``1/|Aut|``); ``source`` in ``lambda``, ``delta_j``,
+    ``target`` in ``psi_j``, ``kappa`` (e.g. ``"lambda delta_0^2"``), degrees
+    adding up to ``3H - 3 + b``.
+
+    Raises
+    ------
+    MonomialError
+        For a class that does not parse or exist, or a wrong degree.
+    """
+    _engine(engine)
+    src = Monomial.parse(source, kinds="source")
+    tgt = Monomial.parse(target, kinds="target")
+    return IntegralResult(_cover_space_integral(problem, src, tgt, engine))

@@ -95,20 +95,49 @@ def test_a_function_of_the_problem_can_be_the_quantity():
     assert s.data.terms[3].value == 60 * 2 * 2  # d = 4: H = 60 (OEIS A170991), |Aut (2,1,1)| = 2 twice
 
 
+def test_locus_class_is_the_commands():
+    p = ct.hurwitz_problem(2, 1, genus=2)
+    r = ct.locus_class(p, family={"delta_0": 10, "delta_1": 0})
+    same_text(r.to_json(), cli("locus", "-g", "2", "-t", "1", "-d", "2", "--family", "delta_0=10,delta_1=0",
+                               "-f", "json"))
+    same_text(r.to_latex(), cli("locus", "-g", "2", "-t", "1", "-d", "2", "-f", "latex"))
+    # the unordered class is the labelled one over the symmetry of the two simple points
+    assert r.unordered == {k: v / 2 for k, v in r.labelled.items()} and r.consistent
+    assert r.family == {"labelled": 10 * r.labelled["delta_0"], "unordered": 10 * r.unordered["delta_0"]}
+    assert ct.locus_class(p, engine="list").labelled == r.labelled
+    with pytest.raises(InputError, match="engine 'fast'"):
+        ct.locus_class(p, engine="fast")
+
+
+def test_cover_integral_is_the_commands():
+    p = ct.hurwitz_problem(3, 1, genus=2)
+    r = ct.cover_integral(p, source="delta_0", target="psi_1")
+    same_text(r.to_json(), cli("integral", "-g", "2", "-t", "1", "-d", "3", "--source", "delta_0",
+                               "--target", "psi_1", "-f", "json"))
+    assert isinstance(r.value, Fraction) and r.value == ct.cover_integral(p, "delta_0", "psi_1", "list").value
+    from covertree.locus.monomial import MonomialError
+    with pytest.raises(MonomialError):
+        ct.cover_integral(p, source="lambda^5")
+
+
 def test_results_are_immutable(problem):
     for result in (ct.hurwitz_count(problem), ct.boundary_strata(1, 1), ct.cover_catalogue(problem),
-                   ct.pullback_table(problem), ct.generating_series(2, 1, 4, 6)):
+                   ct.pullback_table(problem), ct.generating_series(2, 1, 4, 6),
+               ct.locus_class(ct.hurwitz_problem(2, 1, genus=2)),
+               ct.cover_integral(ct.hurwitz_problem(2, 0, genus=2), source="lambda^3")):
         with pytest.raises(dataclasses.FrozenInstanceError):
             result.data = None
 
 
 def test_notebook_views_are_well_formed(problem):
     results = (ct.hurwitz_count(problem), ct.boundary_strata(1, 2), ct.cover_catalogue(problem),
-               ct.pullback_table(problem), ct.generating_series(2, 1, 4, 6))
+               ct.pullback_table(problem), ct.generating_series(2, 1, 4, 6),
+               ct.locus_class(ct.hurwitz_problem(2, 1, genus=2)),
+               ct.cover_integral(ct.hurwitz_problem(2, 0, genus=2), source="lambda^3"))
     for result in results:
         table = ET.fromstring(result._repr_html_())
         assert table.tag == "table" and len(table.find("tbody")) >= 1
-    for result in (results[0], results[3], results[4]):
+    for result in (results[0], *results[3:]):
         latex = result._repr_latex_()
         assert latex.startswith("$") and latex.endswith("$")
 

@@ -37,10 +37,12 @@ def _fraction(text: str) -> Fraction:
               help="Compute degrees 1..N.")
 @click.option("--quantity", "-q", "kind", type=click.Choice(list(KINDS)), default="hurwitz", show_default=True,
               help="hurwitz, disconnected: Hurwitz numbers; total: total weight over --stratum; source: weight "
-                   "over --stratum landing on --source; pullback: c(--stratum, --coefficient).")
+                   "over --stratum landing on --source; pullback: c(--stratum, --coefficient); locus, locus_unordered: "
+                   "the --coefficient (lambda, delta_j) of the class of the locus (labelled, or divided by "
+                   "the symmetry of the profiles).")
 @click.option("--stratum", "-s", "stratum", default=None, help="Base stratum (graph notation).")
 @click.option("--source", "source", default=None, help="Stable source stratum (graph notation).")
-@click.option("--coefficient", "-c", "coefficient", default=None, help="Divisor delta_i of Mbar_G (pullback).")
+@click.option("--coefficient", "-c", "coefficient", default=None, help="Divisor delta_i of Mbar_G (pullback), or lambda / delta_j (locus).")
 @click.option("--engine", "-e", "engine", type=click.Choice(list(ENGINES)), default="types", show_default=True,
               help="How stratum tallies are computed (the same numbers).")
 @click.option("--weight", "-w", "weight", type=click.IntRange(min=0), required=True,

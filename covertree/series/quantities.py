@@ -15,7 +15,13 @@ A :class:`Quantity` names one number covertree prints for a Hurwitz problem:
     ``source`` (the catalogue's ``by_source`` tally);
 ``pullback``
     the coefficient ``c(D, delta)`` of ``covertree pullback`` at the base
-    divisor ``stratum`` for ``coefficient`` = ``delta_i``.
+    divisor ``stratum`` for ``coefficient`` = ``delta_i``;
+``locus``
+    the coefficient ``coefficient`` (``lambda`` or ``delta_j``) of the class
+    of the Hurwitz locus in ``Mbar_G`` (``covertree locus``, labelled branch
+    points; the problems must have a divisorial cover space);
+``locus_unordered``
+    the same coefficient of the class divided by the symmetry of the profiles.
 
 ``engine`` is ``"types"`` (tallies from combinatorial types, the default) or
 ``"list"`` (every cover listed); both give the same numbers.
@@ -23,10 +29,9 @@ A :class:`Quantity` names one number covertree prints for a Hurwitz problem:
 Adding a kind (hook)
 --------------------
 Every kind is an entry of :data:`KINDS`: the fields it needs and a function
-``(quantity, problem) -> Fraction``.  A new kind (for instance a coefficient of
-the class of a Hurwitz locus, with ``coefficient`` naming the class, e.g.
-``"lambda"`` or ``"delta_0"``) is one more entry there; the series command and
-the Python interface pick it up from :data:`KINDS`.  From Python, any function
+``(quantity, problem) -> Fraction``.  A new kind is one more entry there (as
+``locus`` is); the series command and the Python interface pick it up from
+:data:`KINDS`.  From Python, any function
 ``problem -> Fraction`` can be passed to
 :func:`covertree.series.generating.degree_series` as ``evaluate`` without
 registering it.
@@ -39,6 +44,8 @@ Examples
 (Fraction(16, 1), Fraction(16, 1))
 >>> Quantity("pullback", stratum="g0{1,2}, g1 | 0-1", coefficient="delta_1").evaluate(p)
 Fraction(6, 1)
+>>> Quantity("locus", coefficient="delta_1").evaluate(p)   # the 3-elliptic locus in Mbar_2
+Fraction(96, 1)
 """
 
 from __future__ import annotations
@@ -77,8 +84,8 @@ class Quantity:
     source : str, optional
         Stable source stratum (graph notation), for ``source``.
     coefficient : str, optional
-        ``delta_i`` for ``pullback`` (the name of a coefficient, for kinds that
-        need one).
+        ``delta_i`` for ``pullback``, ``lambda`` or ``delta_j`` for ``locus``
+        (the name of a coefficient, for kinds that need one).
     engine : str
         ``"types"`` or ``"list"``.
 
@@ -176,6 +183,17 @@ def _pullback(q: Quantity, problem: HurwitzProblem) -> Fraction:
     return row.coefficients[q.coefficient]
 
 
+def _locus(q: Quantity, problem: HurwitzProblem, unordered: bool = False) -> Fraction:
+    from covertree.locus.divisor import divisor_basis, locus_class
+
+    basis = divisor_basis(problem.genus)
+    if q.coefficient not in basis:
+        raise InputError(f"coefficient {q.coefficient!r} is not a basis class of Pic(Mbar_{problem.genus}); "
+                         f"allowed: {', '.join(basis)}")
+    result = locus_class(problem, q.engine)
+    return (result.unordered if unordered else result.labelled)[q.coefficient]
+
+
 #: Every kind of quantity, by name (read-only; a new kind is a new entry here).
 KINDS: Mapping[str, Kind] = MappingProxyType({
     "hurwitz": Kind((), lambda q, p: problem_hurwitz(p), "connected Hurwitz number"),
@@ -183,4 +201,7 @@ KINDS: Mapping[str, Kind] = MappingProxyType({
     "total": Kind(("stratum",), _total, "total weight over {q.stratum}"),
     "source": Kind(("stratum", "source"), _source, "weight over {q.stratum} landing on {q.source}"),
     "pullback": Kind(("stratum", "coefficient"), _pullback, "c({q.stratum}, {q.coefficient})"),
+    "locus": Kind(("coefficient",), _locus, "{q.coefficient} coefficient of the locus class"),
+    "locus_unordered": Kind(("coefficient",), lambda q, p: _locus(q, p, True),
+                            "{q.coefficient} coefficient of the locus class / profile symmetry"),
 })

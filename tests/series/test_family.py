@@ -47,7 +47,7 @@ def test_quantities_check_their_fields():
         Quantity("total", stratum="g0{1,2 | 0-0")
     with pytest.raises(GraphError, match="not a stable graph"):
         Quantity("total", stratum="g0{1}, g1 | 0-1")
-    assert set(KINDS) == {"hurwitz", "disconnected", "total", "source", "pullback"}
+    assert set(KINDS) == {"hurwitz", "disconnected", "total", "source", "pullback", "locus", "locus_unordered"}
 
 
 def test_source_weights_add_up_to_the_stratum_total():
@@ -69,3 +69,13 @@ def test_pullback_coefficients_need_a_divisor_of_the_source_space():
     types = Quantity("pullback", stratum="g0{1,2} | 0-0", coefficient="delta_0").evaluate(p)
     listed = Quantity("pullback", stratum="g0{1,2} | 0-0", coefficient="delta_0", engine="list").evaluate(p)
     assert types == listed
+
+
+def test_locus_coefficients_need_a_basis_class():
+    p = Family(2, 1).problem(2)
+    with pytest.raises(InputError, match="not a basis class.*allowed: delta_0, delta_1"):
+        Quantity("locus", coefficient="lambda").evaluate(p)
+    with pytest.raises(InputError, match="needs coefficient"):
+        Quantity("locus_unordered")
+    with pytest.raises(ProblemError, match="not a divisor"):
+        Quantity("locus", coefficient="delta_0").evaluate(Family(2, 1, (ProfileShape.parse("3,1^*"),)).problem(4))

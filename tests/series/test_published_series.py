@@ -73,3 +73,23 @@ def test_sum_of_sigma_one_over_d_is_not_quasimodular():
     family = Family(1, 1, (ProfileShape.parse("1^*"),))
     s = degree_series(family, Quantity("hurwitz"), max_degree=20, weight=6, mixed=True)
     assert not s.identification.found and s.identification.text is None
+
+
+@pytest.mark.parametrize("coefficient", ["delta_0", "delta_1"])
+def test_d_elliptic_class_coefficients_are_quasimodular(coefficient):
+    # The classes of the d-elliptic loci in Mbar_2: at d = 2 the bielliptic
+    # locus, Faber-Pagani, The class of the bielliptic locus in genus 3 (2015),
+    # genus-2 case: 3 delta_0 + 12 delta_1 for the reduced locus weighted by
+    # its two unordered branch points (from memory; see tests/locus); the
+    # series in d is quasimodular of mixed weight <= 4 (C. Lian, d-elliptic
+    # loci in genus 2 and 3, arXiv:2004.06768, the genus-2 theorem; covertree
+    # identifies the form and checks it on the coefficients not used to solve).
+    s = degree_series(Family(2, 1), Quantity("locus_unordered", coefficient=coefficient), max_degree=8,
+                      weight=4, mixed=True)
+    assert s.identification.found and s.identification.checked >= 4
+    assert s.terms[1].degree == 2 and s.terms[1].value == {"delta_0": 3, "delta_1": 12}[coefficient]
+    assert not degree_series(Family(2, 1), Quantity("locus_unordered", coefficient=coefficient), max_degree=8,
+                             weight=2, mixed=True).identification.found
+    labelled = degree_series(Family(2, 1), Quantity("locus", coefficient=coefficient), max_degree=4, weight=4,
+                             mixed=True)
+    assert [t.value for t in labelled.terms] == [2 * t.value for t in s.terms[:4]]
