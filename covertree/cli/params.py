@@ -91,8 +91,37 @@ output_option = click.option(
     "output",
     type=click.Path(dir_okay=False, writable=True),
     default=None,
+    callback=lambda ctx, param, value: check_destination(value, param, ctx),
     help="Write to this file (atomically) instead of standard output.",
 )
+
+
+def check_destination(output: str | None, param=None, ctx=None) -> str | None:
+    """Refuse an ``--output`` that can never be written, before any computing:
+    an empty name, a missing folder, a file used as a folder, a folder
+    without write permission."""
+    if output is None:
+        return None
+    if output == "":
+        raise click.BadParameter("empty file name; give a path", param=param, ctx=ctx)
+    target = os.path.realpath(output)
+    if os.path.exists(target) and not os.path.isfile(target):
+        if os.path.isdir(target):
+            raise click.BadParameter(f"{output!r} is a folder; give a file", param=param, ctx=ctx)
+        return output
+    directory = os.path.dirname(target)
+    if not os.path.isdir(directory):
+        raise click.BadParameter(f"folder {directory!r} does not exist", param=param, ctx=ctx)
+    if not os.access(directory, os.W_OK | os.X_OK):
+        raise click.BadParameter(f"folder {directory!r} is not writable", param=param, ctx=ctx)
+    return output
+
+
+def _writes_through(output: str) -> bool:
+    """True when ``output`` (after links) exists and is not a regular file
+    (a device, a fifo): such a target is written into, never replaced."""
+    target = os.path.realpath(output)
+    return os.path.exists(target) and not os.path.isfile(target)
 
 
 def emit(text: str, output: str | None) -> None:
@@ -103,7 +132,11 @@ def emit(text: str, output: str | None) -> None:
     if output is None:
         click.echo(text, nl=False)
         return
-    directory = os.path.dirname(os.path.abspath(output))
+    if _writes_through(output):
+        with open(os.path.realpath(output), "w", encoding="utf-8") as handle:
+            handle.write(text)
+        return
+    directory = os.path.dirname(os.path.realpath(output))
     fd, tmp = tempfile.mkstemp(dir=directory, prefix=".covertree-", suffix=".tmp")
     try:
         with os.fdopen(fd, "w", encoding="utf-8") as handle:
@@ -127,13 +160,18 @@ class AtomicOutput:
     def __enter__(self):
         if self.output is None:
             return sys.stdout
-        directory = os.path.dirname(os.path.abspath(self.output))
+        if _writes_through(self.output):
+            self.handle = open(os.path.realpath(self.output), "w", encoding="utf-8")
+            return self.handle
+        directory = os.path.dirname(os.path.realpath(self.output))
         fd, self.tmp = tempfile.mkstemp(dir=directory, prefix=".covertree-", suffix=".tmp")
         self.handle = os.fdopen(fd, "w", encoding="utf-8")
         return self.handle
 
     def __exit__(self, kind, value, traceback) -> bool:
         if self.tmp is None:
+            if self.output is not None:
+                self.handle.close()
             return False
         self.handle.close()
         if kind is None:
@@ -144,9 +182,15 @@ class AtomicOutput:
 
 
 def _publish(tmp: str, output: str) -> None:
-    """Give the finished temporary file the usual permissions and move it into
-    place in one step."""
-    mask = os.umask(0)
-    os.umask(mask)
-    os.chmod(tmp, 0o666 & ~mask)
-    os.replace(tmp, output)
+    """Give the finished temporary file the mode of the file it replaces (or
+    the usual permissions for a new one) and move it into place in one step;
+    a symlink is followed, so its target is replaced, not the link."""
+    target = os.path.realpath(output)
+    if os.path.isfile(target):
+        mode = os.stat(target).st_mode & 0o7777
+    else:
+        mask = os.umask(0)
+        os.umask(mask)
+        mode = 0o666 & ~mask
+    os.chmod(tmp, mode)
+    os.replace(tmp, target)
