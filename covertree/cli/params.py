@@ -12,7 +12,41 @@ import click
 from covertree.errors import InputError, ProfileError
 from covertree.symmetric.partitions import Partition
 
-_RANGE = re.compile(r"^\s*(-?\d+)\s*\.\.\s*(-?\d+)\s*$")
+_RANGE = re.compile(r"^\s*(-?[0-9]+)\s*\.\.\s*(-?[0-9]+)\s*$", re.ASCII)
+_INTEGER = re.compile(r"^\s*-?[0-9]+\s*$", re.ASCII)
+
+#: Longest integer accepted in a range (digits), far beyond anything feasible.
+MAX_INTEGER_DIGITS = 18
+#: Most values one range option may expand to (a sweep over more is refused).
+MAX_RANGE_VALUES = 100_000
+
+
+def quote_window(text: str, width: int = 40) -> str:
+    """``repr`` of ``text``, shortened to a window of ``width`` characters.
+
+    Examples
+    --------
+    >>> quote_window("1" * 100, 10)
+    "'1111111111'... (100 characters)"
+    """
+    if len(text) <= width:
+        return repr(text)
+    return f"{text[:width]!r}... ({len(text)} characters)"
+
+
+def check_range_size(lo: int, hi: int) -> str | None:
+    """Why the range ``lo..hi`` is refused (too many values), or ``None``."""
+    if hi - lo + 1 > MAX_RANGE_VALUES:
+        return f"range {lo}..{hi} has {hi - lo + 1} values; at most {MAX_RANGE_VALUES} allowed"
+    return None
+
+
+def _bounded_int(token: str) -> int | None:
+    """The integer written by ``token`` (ASCII digits, at most
+    ``MAX_INTEGER_DIGITS``), or ``None``."""
+    if len(token.strip().lstrip("-")) > MAX_INTEGER_DIGITS:
+        return None
+    return int(token)
 
 
 class ProfileType(click.ParamType):
@@ -40,16 +74,21 @@ class IntRangeList(click.ParamType):
         out: set[int] = set()
         for token in str(value).split(","):
             m = _RANGE.match(token)
-            if m:
-                lo, hi = int(m.group(1)), int(m.group(2))
+            ends = [_bounded_int(m.group(1)), _bounded_int(m.group(2))] if m else []
+            if m and None not in ends:
+                lo, hi = ends
                 if lo > hi:
-                    self.fail(f"range {token.strip()!r} is empty (write low..high)", param, ctx)
+                    self.fail(f"range {quote_window(token.strip())} is empty (write low..high)", param, ctx)
+                too_big = check_range_size(lo, hi)
+                if too_big:
+                    self.fail(too_big, param, ctx)
                 out.update(range(lo, hi + 1))
-            elif token.strip().lstrip("-").isdigit():
+            elif _INTEGER.match(token) and _bounded_int(token) is not None:
                 out.add(int(token))
             else:
                 self.fail(
-                    f"{token.strip()!r} is not an integer, a range a..b or a list a,b,c",
+                    f"{quote_window(token.strip())} is not an integer of at most {MAX_INTEGER_DIGITS} digits,"
+                    " a range a..b or a list a,b,c",
                     param,
                     ctx,
                 )
