@@ -33,6 +33,7 @@ import json
 from collections.abc import Sequence
 
 from covertree.graphs.curve_graph import CurveGraph
+from covertree.export.jsontext import json_text
 
 __all__ = ["STRATA_COLUMNS", "latex_escape", "notation_math", "strata_csv", "strata_json", "strata_latex", "strata_rows"]
 
@@ -71,7 +72,7 @@ def strata_json(target_genus: int, points: int, graphs: Sequence[CurveGraph]) ->
         "points": points,
         "strata": [g.to_dict() for g in graphs],
     }
-    return json.dumps(document, indent=2) + "\n"
+    return json_text(document) + "\n"
 
 
 def strata_csv(graphs: Sequence[CurveGraph]) -> str:

@@ -29,13 +29,13 @@ from __future__ import annotations
 
 import csv
 import io
-import json
 
 from covertree.catalogue.pullback import Pullback
 from covertree.export.catalogue import problem_to_dict
 from covertree.export.graphs import notation_math
 from covertree.export.latex import latex_document
 from covertree.export.rational import latex_rational, rational_str
+from covertree.export.jsontext import json_text
 
 __all__ = ["pullback_to_dict", "pullback_to_json", "pullback_to_csv", "pullback_to_latex", "pullback_columns"]
 
@@ -59,7 +59,7 @@ def pullback_to_dict(pb: Pullback) -> dict:
 
 def pullback_to_json(pb: Pullback) -> str:
     """The JSON document (indented)."""
-    return json.dumps(pullback_to_dict(pb), indent=1)
+    return json_text(pullback_to_dict(pb))
 
 
 def pullback_columns(pb: Pullback) -> tuple[str, ...]:
