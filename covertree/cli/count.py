@@ -5,8 +5,6 @@ from __future__ import annotations
 import io
 
 import click
-from rich.console import Console
-from rich.table import Table
 
 from covertree.cli.params import PROFILE, OneLineCommand, emit, format_option, output_option
 from covertree.export.counts import COUNT_COLUMNS, count_row, counts_csv, counts_json, counts_latex
@@ -45,6 +43,9 @@ def command(genus, target_genus, degree, profiles, fmt, output) -> None:
 
 
 def _table(problem, connected, disconnected) -> str:
+    # rich only for the table format (a fast start for the other formats)
+    from rich.console import Console
+    from rich.table import Table
     table = Table(title="Hurwitz numbers (labelled branch points, weight 1/|Aut|)")
     for name in COUNT_COLUMNS:
         table.add_column(name.replace("_", " "), justify="left" if name == "profiles" else "right")

@@ -5,9 +5,6 @@ from __future__ import annotations
 import io
 
 import click
-from rich.console import Console
-from rich.table import Table
-from rich.text import Text
 
 from covertree.cli.params import OneLineCommand, emit, format_option, output_option
 from covertree.export.graphs import strata_csv, strata_json, strata_latex, strata_rows
@@ -59,6 +56,10 @@ def command(genus: int, points: int, codim: int | None, standalone: bool, fmt: s
 
 
 def _table(genus: int, points: int, codim: int | None, graphs) -> str:
+    # rich only for the table format (a fast start for the other formats)
+    from rich.console import Console
+    from rich.table import Table
+    from rich.text import Text
     limit = "" if codim is None or codim >= 3 * genus - 3 + points else f" of codim <= {codim}"
     table = Table(title=f"Strata of Mbar_{{{genus},{points}}}{limit}: {len(graphs)}")
     for name in ("#", "codim", "|V|", "|Aut|"):

@@ -111,3 +111,21 @@ def test_bad_input(args, needle):
 def test_help_uses_short_h():
     result = run("-h")
     assert result.exit_code == 0 and "--target-genus" in result.stdout
+
+
+def test_count_starts_without_the_other_commands():
+    # the commands' modules load on first use: count needs neither the
+    # enumeration machinery, sympy nor rich (for a non-table format)
+    import subprocess
+    import sys
+
+    code = (
+        "import sys; from covertree.cli import main\n"
+        "try:\n    main(['count', '-g', '2', '-t', '1', '-d', '3', '-f', 'csv'])\n"
+        "except SystemExit:\n    pass\n"
+        "print(sorted(m for m in ('sympy', 'rich', 'covertree.catalogue', 'covertree.graphs.enumerate')"
+        " if m in sys.modules), file=sys.stderr)"
+    )
+    done = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
+    assert done.stderr.strip() == "[]"
+    assert done.stdout.splitlines()[1].split(",")[-2] == "16"  # OEIS A170991: 16 at d = 3
