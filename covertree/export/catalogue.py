@@ -62,7 +62,7 @@ from covertree.catalogue.catalogue import Catalogue, StratumResult
 from covertree.catalogue.covers import Cover
 from covertree.catalogue.local_structure import LocalStructure, local_structure
 from covertree.export.graphs import notation_math
-from covertree.export.latex import latex_document
+from covertree.export.latex import latex_document, sized_longtable, wrapped_cell
 from covertree.export.rational import latex_rational, rational_str
 
 #: Column names of the CSV rendering (stable: scripts rely on them).
@@ -184,34 +184,46 @@ def catalogue_to_csv(cat: Catalogue) -> str:
     return buffer.getvalue()
 
 
+#: Columns of the LaTeX table: the notations wrap in ragged-right columns
+#: sized as fractions of the line, the numbers take their natural width.
+LATEX_COLUMNS = (r"p{0.1\linewidth}p{0.24\linewidth}p{0.2\linewidth}rrrrrp{0.09\linewidth}")
+
+
 def catalogue_to_latex(cat: Catalogue, standalone: bool = False) -> str:
-    """A booktabs ``longtable`` (one block per stratum), or a complete document."""
-    lines = [
-        r"\begin{longtable}{llllrrlrrl}",
-        r"\toprule",
-        r"profiles & source & stable source & name & $|\mathrm{Aut}|$ & mult & weight & $L$ & br & orders \\",
-        r"\midrule",
-        r"\endhead",
-    ]
+    r"""A booktabs ``longtable`` in ``\footnotesize`` (one block per stratum,
+    headed by the base and its check), narrow enough for the text block of an
+    article or amsart page: the profiles, the sources and the orders wrap
+    inside their columns; or a complete document."""
+    header = ["profiles", "source", "stable source", r"$|\mathrm{Aut}|$", "mult", "weight", "$L$", "br", "orders"]
+    rows: list[str] = []
     for s in cat.strata:
-        head = (f"\\multicolumn{{10}}{{l}}{{base {notation_math(s.base.graph.notation)}, codim "
-                f"{s.base.graph.codim}, orbit {s.base.orbit_size}: total "
-                f"${latex_rational(s.total_weight)}$ vs.\\ $H = {latex_rational(s.hurwitz_number)}$"
-                f" ({'holds' if s.identity_holds else 'FAILS'})}} \\\\")
-        lines += [head, r"\midrule"]
-        for c in s.covers:
-            lines.append(" & ".join([
-                "$" + ";".join(",".join(map(str, p)) for p in c.edge_profiles) + "$" if c.edge_profiles else "--",
-                notation_math(c.source.notation), notation_math(c.stable_source.notation),
-                f"$\\{c.stable_source_name.replace('_', '_{')}}}$" if c.stable_source_name else "",
-                str(c.automorphisms), str(c.multiplicity), f"${latex_rational(c.weight)}$",
-                *_latex_local(local_structure(c)),
-            ]) + r" \\")
-        lines.append(r"\midrule")
-    lines[-1] = r"\bottomrule"
-    lines.append(r"\end{longtable}")
-    body = "\n".join(lines)
+        if rows:
+            rows.append(r"\midrule")
+        rows += [_latex_stratum_head(s), r"\midrule"]
+        rows += [_latex_cover_row(c) for c in s.covers]
+    body = sized_longtable(LATEX_COLUMNS, header, rows, size="footnotesize", tabcolsep="3pt")
     return _document(body, cat) if standalone else body
+
+
+def _latex_stratum_head(s: StratumResult) -> str:
+    verdict = "holds" if s.identity_holds else "FAILS"
+    text = (f"base {notation_math(s.base.graph.notation)}, codim {s.base.graph.codim}, orbit "
+            f"{s.base.orbit_size}: total ${latex_rational(s.total_weight)}$ vs.\\ "
+            f"$H = {latex_rational(s.hurwitz_number)}$ ({verdict})")
+    return f"\\multicolumn{{9}}{{p{{0.9\\linewidth}}}}{{{wrapped_cell(text)}}} \\\\"
+
+
+def _latex_cover_row(c: Cover) -> str:
+    profiles = ";\\allowbreak ".join(",".join(map(str, p)) for p in c.edge_profiles)
+    name = f" ($\\{c.stable_source_name.replace('_', '_{')}}}$)" if c.stable_source_name else ""
+    orders = _latex_local(local_structure(c))
+    return " & ".join([
+        wrapped_cell(f"${profiles}$" if c.edge_profiles else "--"),
+        wrapped_cell(notation_math(c.source.notation)),
+        wrapped_cell(notation_math(c.stable_source.notation) + name),
+        str(c.automorphisms), str(c.multiplicity), f"${latex_rational(c.weight)}$",
+        *orders[:2], wrapped_cell(orders[2]),
+    ]) + r" \\"
 
 
 def _latex_local(local: LocalStructure) -> list[str]:
@@ -221,7 +233,7 @@ def _latex_local(local: LocalStructure) -> list[str]:
     if local.stable_nodes is None:
         orders = ""
     else:
-        orders = ", ".join(
+        orders = ",\\allowbreak\\ ".join(
             f"{n.order}" + (f"\\,\\delta_{{{n.type.split('_', 1)[1]}}}" if n.type else "")
             for n in local.stable_nodes
         )
@@ -233,4 +245,4 @@ def _document(body: str, cat: Catalogue) -> str:
     p = cat.problem
     title = (f"Admissible covers of degree {p.degree}, genus {p.genus} over genus "
              f"{p.target_genus}, codimension $\\le {cat.codim}$")
-    return latex_document(body, title, ["booktabs", "longtable", "amsmath"], "margin=2cm,landscape")
+    return latex_document(body, title, ["booktabs", "longtable", "amsmath"])
