@@ -21,7 +21,7 @@ from fractions import Fraction
 
 from covertree.errors import IdentityError
 from covertree.gluing.covers import GluedCover, glued_covers
-from covertree.graphs.dual_graph import DualGraph, StableGraph
+from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 from covertree.hurwitz.problem import source_genus
 from covertree.stabilisation.stabilise import Stabilised, stabilise
 
@@ -34,10 +34,10 @@ class Cover:
     ----------
     edge_profiles : tuple of tuple of int
         Profile over each base node, in the base's edge order.
-    source : DualGraph
+    source : CurveGraph
         Dual graph of the source curve (often unstable).
-    stable_source : DualGraph
-        Its stabilisation (a :class:`StableGraph` when the genus is >= 2).
+    stable_source : CurveGraph
+        Its stabilisation (a :class:`StableCurveGraph` when the genus is >= 2).
     automorphisms, multiplicity : int
     raw : GluedCover
         The glued monodromy data (pieces, ports, node indices).
@@ -47,8 +47,8 @@ class Cover:
     """
 
     edge_profiles: tuple[tuple[int, ...], ...]
-    source: DualGraph
-    stable_source: DualGraph
+    source: CurveGraph
+    stable_source: CurveGraph
     automorphisms: int
     multiplicity: int
     raw: GluedCover = field(compare=False, repr=False)
@@ -69,25 +69,25 @@ class Cover:
         return (self.edge_profiles, self.stable_source.key, self.source.key, self.raw.code)
 
 
-def divisor_name(graph: DualGraph) -> str | None:
+def divisor_name(graph: CurveGraph) -> str | None:
     """The usual name of a codimension-one stratum of ``Mbar_g``: ``delta_0``
     (irreducible, one loop) or ``delta_i`` (separating, genus ``i <= g/2`` on one
     side); ``None`` for other codimensions or graphs with legs.
 
-    >>> divisor_name(StableGraph([1, 2], [(0, 1)]))
+    >>> divisor_name(StableCurveGraph([1, 2], nodes=[(0, 1)]))
     'delta_1'
     """
     if graph.codim != 1 or graph.n_legs or graph.genus < 2:
         return None
     if graph.n_vertices == 1:
         return "delta_0"
-    return f"delta_{min(graph.genera)}"
+    return f"delta_{min(graph.vertex_genera)}"
 
 
-def make_graph(genera: Sequence[int], edges: Sequence[tuple[int, int]]) -> DualGraph:
-    """A :class:`StableGraph` when stable, else a :class:`DualGraph`."""
-    graph = DualGraph(genera, edges)
-    return StableGraph(genera, edges) if graph.is_stable() else graph
+def make_graph(genera: Sequence[int], edges: Sequence[tuple[int, int]]) -> CurveGraph:
+    """A :class:`StableCurveGraph` when stable, else a :class:`CurveGraph`."""
+    graph = CurveGraph._from_parts(genera, edges)
+    return StableCurveGraph._from_parts(genera, edges) if graph.is_stable() else graph
 
 
 def to_cover(raw: GluedCover, genus: int) -> Cover:
@@ -102,7 +102,7 @@ def to_cover(raw: GluedCover, genus: int) -> Cover:
     return Cover(raw.edge_profiles, source, stable, raw.automorphisms, raw.multiplicity, raw, stab)
 
 
-def stratum_covers(base: DualGraph, degree: int, profiles: Sequence[Sequence[int]]) -> Iterator[Cover]:
+def stratum_covers(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]]) -> Iterator[Cover]:
     """Every admissible cover over a fixed curve of type ``base``, streamed in
     the engine's deterministic order."""
     genus = source_genus(degree, base.genus, [tuple(p) for p in profiles])

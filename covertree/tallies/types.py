@@ -119,7 +119,7 @@ from covertree.catalogue.catalogue import problem_hurwitz, select_strata, weight
 from covertree.catalogue.covers import make_graph
 from covertree.errors import GraphError, IdentityError
 from covertree.graphs.canonical import _certify
-from covertree.graphs.dual_graph import DualGraph, StableGraph
+from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.monodromy.local import special_points
 from covertree.stabilisation.stabilise import Stabilised, stabilise
@@ -156,12 +156,12 @@ class TallyEntry:
     weight: Fraction
 
     @property
-    def source(self) -> DualGraph:
+    def source(self) -> CurveGraph:
         """The source dual graph (often unstable)."""
         return _graphs(self.genera, _plain(self.edges))[0]
 
     @property
-    def stable_source(self) -> DualGraph:
+    def stable_source(self) -> CurveGraph:
         """The stabilised source."""
         return _graphs(self.genera, _plain(self.edges))[1]
 
@@ -207,7 +207,7 @@ class TypeTally:
         """The degeneration identity: total weight == Hurwitz number."""
         return self.total_weight == self.hurwitz_number
 
-    def by_source(self) -> list[tuple[DualGraph, Fraction]]:
+    def by_source(self) -> list[tuple[CurveGraph, Fraction]]:
         """Summed weight per stable source stratum, sorted canonically (as
         :meth:`covertree.catalogue.catalogue.StratumResult.by_source`)."""
         return weight_by_graph((e.stable_source, e.weight) for e in self.entries)
@@ -219,7 +219,7 @@ class TypeTally:
             tally[e.edge_profiles] = tally.get(e.edge_profiles, Fraction(0)) + e.weight
         return sorted(tally.items())
 
-    def by_class(self) -> list[tuple[tuple[Profile, ...], DualGraph, DualGraph, Fraction]]:
+    def by_class(self) -> list[tuple[tuple[Profile, ...], CurveGraph, CurveGraph, Fraction]]:
         """Summed weight per ``(node profiles, source, stable source)``, sorted."""
         tally: dict[tuple, Fraction] = {}
         for e in self.entries:
@@ -280,12 +280,12 @@ class _Vertex:
     halves: tuple[tuple, ...]  # per half point of the vertex: ("half", k, side)
 
 
-def _vertex_data(base: StableGraph, degree: int, genus: int, profiles: Sequence[Profile]) -> list[_Vertex]:
+def _vertex_data(base: StableCurveGraph, degree: int, genus: int, profiles: Sequence[Profile]) -> list[_Vertex]:
     out = []
     for v, spec in enumerate(special_points(base)):
         legs = tuple(tuple(profiles[s[1] - 1]) for s in spec if s[0] == "leg")
         halves = tuple(s for s in spec if s[0] == "half")
-        key = (degree, base.genera[v], legs, len(halves), genus)
+        key = (degree, base.vertex_genera[v], legs, len(halves), genus)
         out.append(_Vertex(piece_shapes(*key), tuple(local_multisets(*key)), halves))
     return out
 
@@ -297,7 +297,7 @@ def _union_profiles(shapes: Sequence[Shape], multiset: Sequence[int], n_halves: 
     )
 
 
-def _choices(base: StableGraph, data: list[_Vertex], genus: int) -> Iterator[tuple[tuple[int, ...], ...]]:
+def _choices(base: StableCurveGraph, data: list[_Vertex], genus: int) -> Iterator[tuple[tuple[int, ...], ...]]:
     """Balanced choices of one local multiset per vertex, genera adding up to
     at most ``genus``."""
     where = {}
@@ -305,7 +305,7 @@ def _choices(base: StableGraph, data: list[_Vertex], genus: int) -> Iterator[tup
         for p, (_, k, side) in enumerate(vd.halves):
             where[(k, side)] = (v, p)
     checks: list[list[tuple]] = [[] for _ in data]
-    for k, (i, j) in enumerate(base.edges):
+    for k, (i, j) in enumerate(base.nodes):
         checks[max(i, j)].append((where[(k, 0)], where[(k, 1)]))
     options = []
     for vd in data:
@@ -328,9 +328,9 @@ def _choices(base: StableGraph, data: list[_Vertex], genus: int) -> Iterator[tup
     yield from rec(0, genus)
 
 
-def _edge_profiles(base: StableGraph, data: list[_Vertex], choice) -> tuple[Profile, ...]:
+def _edge_profiles(base: StableCurveGraph, data: list[_Vertex], choice) -> tuple[Profile, ...]:
     out = []
-    for k, (i, _) in enumerate(base.edges):
+    for k, (i, _) in enumerate(base.nodes):
         p = data[i].halves.index(("half", k, 0))
         out.append(tuple(sorted((x for s in choice[i] for x in data[i].shapes[s].halves[p]), reverse=True)))
     return tuple(out)
@@ -347,7 +347,7 @@ def _class_ids(choice) -> list[int]:
     return out
 
 
-def _choice_entries(base: StableGraph, data: list[_Vertex], choice, genus: int) -> list[TallyEntry]:
+def _choice_entries(base: StableCurveGraph, data: list[_Vertex], choice, genus: int) -> list[TallyEntry]:
     vertex = [v for v, m in enumerate(choice) for _ in m]
     shapes = [data[v].shapes[s] for v, m in enumerate(choice) for s in m]
     classes = _class_ids(choice)
@@ -359,13 +359,13 @@ def _choice_entries(base: StableGraph, data: list[_Vertex], choice, genus: int) 
     mult = prod(x for p in profiles for x in p)
     sizes = [classes.count(c) for c in range(classes[-1] + 1)]
     coeff = Fraction(mult) * prod(s.hurwitz for s in shapes) / prod(factorial(n) for n in sizes)
-    counts = count_matchings(base.edges, vertex, [s.halves for s in shapes], classes)
+    counts = count_matchings(base.nodes, vertex, [s.halves for s in shapes], classes)
     return [TallyEntry(profiles, genera, key, coeff * n) for key, n in sorted(counts.items())]
 
 
-def _check_base(problem: HurwitzProblem, graph: StableGraph) -> None:
+def _check_base(problem: HurwitzProblem, graph: StableCurveGraph) -> None:
     """The base must be a stratum of ``Mbar_{h,b}`` with legs ``1..b``."""
-    legs = sorted(j for x in graph.legs for j in x)
+    legs = sorted(j for x in graph.vertex_legs for j in x)
     if graph.genus != problem.target_genus or legs != list(range(1, problem.points + 1)):
         raise GraphError(
             f"stratum {graph.notation!r} is not a stratum of Mbar_{{{problem.target_genus},{problem.points}}} "
@@ -477,7 +477,7 @@ def iter_types(problem: HurwitzProblem, base: BaseStratum) -> Iterator[CoverType
         labelled = prod(s.hurwitz * prod(_aut(p) for p in s.halves) for s in shapes)
         mult = prod(x for p in edge_profiles for x in p)
         seen: set[tuple] = set()
-        for key in sorted(count_matchings(base.graph.edges, vertex, [s.halves for s in shapes], classes)):
+        for key in sorted(count_matchings(base.graph.nodes, vertex, [s.halves for s in shapes], classes)):
             code, aut_v, relabel = _type_code(classes, key)
             if code not in seen:
                 seen.add(code)
@@ -489,7 +489,7 @@ def _aut(profile: Profile) -> int:
     return prod(factorial(profile.count(x)) for x in set(profile))
 
 
-def tally_catalogue(problem: HurwitzProblem, max_codim: int = 1, stratum: StableGraph | None = None,
+def tally_catalogue(problem: HurwitzProblem, max_codim: int = 1, stratum: StableCurveGraph | None = None,
                     labeled: bool = False) -> TallyCatalogue:
     """Tallies over every selected base stratum (as
     :func:`covertree.catalogue.catalogue.build_catalogue` selects them)."""
