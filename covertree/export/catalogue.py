@@ -65,13 +65,14 @@ from __future__ import annotations
 
 import csv
 import io
+from fractions import Fraction
 
 from covertree.catalogue.catalogue import Catalogue, StratumResult
 from covertree.catalogue.covers import Cover
 from covertree.catalogue.grouping import group_covers
 from covertree.catalogue.local_structure import LocalStructure, local_structure
 from covertree.export.graphs import notation_math
-from covertree.export.latex import latex_document
+from covertree.export.latex import latex_document, sized_longtable, wrapped_cell
 from covertree.export.rational import latex_rational, rational_str
 from covertree.export.jsontext import json_text, json_line
 from covertree.export.words import profiles_csv, profiles_latex
@@ -207,53 +208,65 @@ def catalogue_to_csv(cat: Catalogue) -> str:
     return buffer.getvalue()
 
 
-def catalogue_to_latex(cat: Catalogue, standalone: bool = False, grouped: bool = True) -> str:
-    """A booktabs ``longtable`` (one block per stratum), or a complete document.
+#: Columns of the LaTeX table: the notations wrap in ragged-right columns
+#: sized as fractions of the line, the numbers take their natural width.
+LATEX_COLUMNS = (r"p{0.1\linewidth}p{0.24\linewidth}p{0.2\linewidth}rrrrrp{0.09\linewidth}")
+#: The same with the count column of grouped rows in front (the source
+#: column gives up the room it takes).
+LATEX_COLUMNS_GROUPED = (r"rp{0.1\linewidth}p{0.19\linewidth}p{0.2\linewidth}rrrrrp{0.09\linewidth}")
 
-    ``grouped`` (the default) lists covers with identical rows once, with
-    their number in a first column and their summed weight."""
-    lines = [
-        r"\begin{longtable}{" + ("r" if grouped else "") + "llllrrlrrl}",
-        r"\toprule",
-        ("covers & " if grouped else "")
-        + r"profiles & source & stable source & name & $|\mathrm{Aut}|$ & mult & weight & $L$ & br & orders \\",
-        r"\midrule",
-        r"\endhead",
-    ]
+
+def catalogue_to_latex(cat: Catalogue, standalone: bool = False, grouped: bool = True) -> str:
+    r"""A booktabs ``longtable`` in ``\footnotesize`` (one block per stratum,
+    headed by the base and its check), narrow enough for the text block of an
+    article or amsart page: the profiles, the sources and the orders wrap
+    inside their columns; or a complete document.
+
+    ``grouped`` (the default) lists covers whose rows are identical once, with
+    their number (``3\times``) in a first column and their summed weight."""
+    header = ["profiles", "source", "stable source", r"$|\mathrm{Aut}|$", "mult", "weight", "$L$", "br", "orders"]
+    if grouped:
+        header = ["covers", *header]
+    rows: list[str] = []
     for s in cat.strata:
-        head = (f"\\multicolumn{{{10 + grouped}}}{{l}}{{base {notation_math(s.base.graph.notation)}, codim "
-                f"{s.base.graph.codim}, orbit {s.base.orbit_size}: total "
-                f"${latex_rational(s.total_weight)}$ vs.\\ $H = {latex_rational(s.hurwitz_number)}$"
-                f" ({'holds' if s.identity_holds else 'FAILS'})}} \\\\")
-        lines += [head, r"\midrule"]
-        for count, weight, c in _latex_rows(s, grouped):
-            cells = _latex_cells(c)
-            cells[6] = f"${latex_rational(weight)}$"
-            lines.append(" & ".join([*([f"${count}\\times$"] if grouped else []), *cells]) + r" \\")
-        lines.append(r"\midrule")
-    lines[-1] = r"\bottomrule"
-    lines.append(r"\end{longtable}")
-    body = "\n".join(lines)
+        if rows:
+            rows.append(r"\midrule")
+        rows += [_latex_stratum_head(s, len(header)), r"\midrule"]
+        rows += [_latex_cover_row(c, weight, count) for count, weight, c in _latex_rows(s, grouped)]
+    spec = LATEX_COLUMNS_GROUPED if grouped else LATEX_COLUMNS
+    body = sized_longtable(spec, header, rows, size="footnotesize", tabcolsep="3pt")
     return _document(body, cat) if standalone else body
 
 
-def _latex_cells(c: Cover) -> list[str]:
-    """The cells of one cover's row (weight of the cover itself)."""
-    return [
-        profiles_latex(c.edge_profiles),
-        notation_math(c.source.notation), notation_math(c.stable_source.notation),
-        f"$\\{c.stable_source_name.replace('_', '_{')}}}$" if c.stable_source_name else "",
-        str(c.automorphisms), str(c.multiplicity), f"${latex_rational(c.weight)}$",
-        *_latex_local(local_structure(c)),
-    ]
-
-
 def _latex_rows(s: StratumResult, grouped: bool) -> list[tuple]:
-    """``(count, weight, cover)`` per printed row (summed weight when grouped)."""
+    """``(count, weight, cover)`` per printed row: groups of identical rows with
+    their summed weight, or (``count`` ``None``) every cover."""
     if grouped:
         return [(g.count, g.total_weight, g.cover)
-                for g in group_covers(s, key=lambda c: tuple(_latex_cells(c)))]
-    return [(1, c.weight, c) for c in s.covers]
+                for g in group_covers(s, key=lambda c: _latex_cover_row(c, c.weight, None))]
+    return [(None, c.weight, c) for c in s.covers]
+
+
+def _latex_stratum_head(s: StratumResult, n_columns: int = 9) -> str:
+    verdict = "holds" if s.identity_holds else "FAILS"
+    text = (f"base {notation_math(s.base.graph.notation)}, codim {s.base.graph.codim}, orbit "
+            f"{s.base.orbit_size}: total ${latex_rational(s.total_weight)}$ vs.\\ "
+            f"$H = {latex_rational(s.hurwitz_number)}$ ({verdict})")
+    return f"\\multicolumn{{{n_columns}}}{{p{{0.9\\linewidth}}}}{{{wrapped_cell(text)}}} \\\\"
+
+
+def _latex_cover_row(c: Cover, weight: Fraction, count: int | None) -> str:
+    """One row: ``count`` in front when grouped, ``weight`` (summed when grouped)."""
+    name = f" ($\\{c.stable_source_name.replace('_', '_{')}}}$)" if c.stable_source_name else ""
+    orders = _latex_local(local_structure(c))
+    return " & ".join([
+        *([f"${count}\\times$"] if count is not None else []),
+        wrapped_cell(profiles_latex(c.edge_profiles)),
+        wrapped_cell(notation_math(c.source.notation)),
+        wrapped_cell(notation_math(c.stable_source.notation) + name),
+        str(c.automorphisms), str(c.multiplicity), f"${latex_rational(weight)}$",
+        *orders[:2], wrapped_cell(orders[2]),
+    ]) + r" \\"
 
 
 def _latex_local(local: LocalStructure) -> list[str]:
@@ -263,7 +276,7 @@ def _latex_local(local: LocalStructure) -> list[str]:
     if local.stable_nodes is None:
         orders = ""
     else:
-        orders = ", ".join(
+        orders = ",\\allowbreak\\ ".join(
             f"{n.order}" + (f"\\,\\delta_{{{n.type.split('_', 1)[1]}}}" if n.type else "")
             for n in local.stable_nodes
         )
@@ -275,4 +288,4 @@ def _document(body: str, cat: Catalogue) -> str:
     p = cat.problem
     title = (f"Admissible covers of degree {p.degree}, genus {p.genus} over genus "
              f"{p.target_genus}, codimension $\\le {cat.codim}$")
-    return latex_document(body, title, ["booktabs", "longtable", "amsmath"], "margin=2cm,landscape")
+    return latex_document(body, title, ["booktabs", "longtable", "amsmath"])

@@ -19,11 +19,11 @@ Examples
 genus,target_genus,degree,profiles,connected,disconnected
 2,1,2,2;2,2,2
 >>> print(counts_latex(p, Fraction(2), Fraction(5, 2)))
-\begin{tabular}{rrrlrr}
+\begin{tabular}{rrrp{0.4\linewidth}rr}
 \toprule
 $g$ & $h$ & $d$ & profiles & connected & disconnected \\
 \midrule
-2 & 1 & 2 & $2;\ 2$ & $2$ & $\frac{5}{2}$ \\
+2 & 1 & 2 & {\raggedright $2;\allowbreak\ 2$\par} & $2$ & $\frac{5}{2}$ \\
 \bottomrule
 \end{tabular}
 """
@@ -35,6 +35,7 @@ import io
 import json
 from fractions import Fraction
 
+from covertree.export.latex import wrapped_cell
 from covertree.export.rational import latex_rational, rational_str
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.export.jsontext import json_text
@@ -104,15 +105,15 @@ def counts_csv(problem: HurwitzProblem, connected: Fraction, disconnected: Fract
 
 def counts_latex(problem: HurwitzProblem, connected: Fraction, disconnected: Fraction) -> str:
     r"""A small ``booktabs`` tabular (``\usepackage{booktabs}``), non-integers as
-    ``\frac``.
+    ``\frac``; the profiles wrap in 40% of the line.
 
     >>> p = HurwitzProblem.build(degree=4, target_genus=0, profiles=["2,1^2"] * 6)
     >>> print(counts_latex(p, Fraction(8), Fraction(9)).splitlines()[4])  # doctest: +ELLIPSIS
-    0 & 0 & 4 & $2,1^{2};\ 2,1^{2};\ ...$ & $8$ & $9$ \\
+    0 & 0 & 4 & {\raggedright $2,1^{2};\allowbreak\ 2,1^{2};\allowbreak\ ...$\par} & $8$ & $9$ \\
     """
-    profiles = profiles_latex(problem.profiles)
+    profiles = wrapped_cell(profiles_latex(problem.profiles))
     lines = [
-        r"\begin{tabular}{rrrlrr}",
+        r"\begin{tabular}{rrrp{0.4\linewidth}rr}",
         r"\toprule",
         r"$g$ & $h$ & $d$ & profiles & connected & disconnected \\",
         r"\midrule",

@@ -136,10 +136,10 @@ def series_summary(s: DegreeSeries) -> str:
 def series_to_latex(s: DegreeSeries) -> str:
     """A LaTeX fragment: the table of coefficients and the identified form (or
     the plain statement that none fits)."""
-    lines = [r"\begin{tabular}{rrr}", r"\hline", r"$d$ & value & $[q^d]$ \\", r"\hline"]
+    lines = [r"\begin{tabular}{rrr}", r"\toprule", r"$d$ & value & $[q^d]$ \\", r"\midrule"]
     for t, c in zip(s.terms, s.coefficients[1:]):
         lines.append(f"{t.degree} & ${latex_rational(t.value)}$ & ${latex_rational(c)}$ \\\\")
-    lines += [r"\hline", r"\end{tabular}", ""]
+    lines += [r"\bottomrule", r"\end{tabular}", ""]
     found = s.identification
     if found.found:
         lines.append(rf"\[ \sum_{{d \ge 0}} [q^d]\, q^d = {found.latex} \]")

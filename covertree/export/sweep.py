@@ -57,6 +57,7 @@ from fractions import Fraction
 from covertree import MODEL_VERSION
 from covertree.errors import InputError
 from covertree.export.graphs import notation_math
+from covertree.export.latex import sized_longtable, wrapped_cell
 from covertree.export.rational import latex_rational, rational_str
 from covertree.graphs.curve_graph import StableCurveGraph
 from covertree.hurwitz.problem import HurwitzProblem
@@ -159,8 +160,8 @@ def summary_line(report: SweepReport) -> str:
 def _latex_row(row: StratumSummary, columns: list[str]) -> str:
     p, landing = row.problem, dict(row.landing)
     cells = [str(p.genus), str(p.target_genus), str(p.degree),
-             profiles_latex(p.profiles),
-             notation_math(row.stratum), str(row.orbit_size), count_text(row.n_covers),
+             wrapped_cell(profiles_latex(p.profiles)),
+             wrapped_cell(notation_math(row.stratum)), str(row.orbit_size), count_text(row.n_covers),
              f"${latex_rational(row.total_weight)}$", f"${latex_rational(row.hurwitz_number)}$",
              "holds" if row.identity_holds else "FAILS"]
     cells += [f"${latex_rational(landing[c])}$" if c in landing else "" for c in columns]
@@ -168,15 +169,16 @@ def _latex_row(row: StratumSummary, columns: list[str]) -> str:
 
 
 def sweep_to_latex(report: SweepReport) -> str:
-    r"""A booktabs ``longtable``, one line per row, then the summary line."""
+    r"""A booktabs ``longtable`` in ``\scriptsize`` (one line per row; the
+    profiles and the base wrap inside their columns, so the table keeps to the
+    text width of an article or amsart page), then the summary line."""
     columns = landing_columns(report)
     names = [landing_header(c, "latex") for c in columns]
     head = [r"$g$", r"$h$", r"$d$", "profiles", "base", "orbit", "covers", "total", "$H$", "identity"]
-    lines = [r"\begin{longtable}{" + "rrrll" + "r" * (5 + len(columns)) + "}", r"\toprule",
-             " & ".join(head + names) + r" \\", r"\midrule", r"\endhead"]
-    lines += [_latex_row(row, columns) for row in report.rows]
-    lines += [r"\bottomrule", r"\end{longtable}", "", summary_line(report) + "."]
-    return "\n".join(lines)
+    spec = r"rrrp{0.1\linewidth}p{0.19\linewidth}" + "r" * (5 + len(columns))
+    table = sized_longtable(spec, head + names, [_latex_row(row, columns) for row in report.rows],
+                            size="scriptsize", tabcolsep="2pt")
+    return "\n".join([table, "", summary_line(report) + "."])
 
 
 def sweep_from_json(text: str, name: str = "input") -> SweepReport:

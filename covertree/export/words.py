@@ -4,7 +4,8 @@
   powers (``2,1^3``); several profiles joined by ``"; "``; ``-`` for none;
 * CSV: every part written out (``2,1,1,1``), profiles joined by ``;``
   (easy to split in a script);
-* LaTeX: ``2,1^{3}`` in math mode, profiles joined by ``;\\ ``;
+* LaTeX: ``2,1^{3}`` in math mode, profiles joined by ``;\\allowbreak\\ ``
+  (a line may break between profiles);
 * JSON: lists of integers.
 
 Examples
@@ -12,7 +13,7 @@ Examples
 >>> profile_text((2, 1, 1, 1)), profiles_text([(3,), (2, 1, 1, 1)]), profiles_text([])
 ('2,1^3', '3; 2,1^3', '-')
 >>> profiles_csv([(3,), (2, 1, 1, 1)]), profiles_latex([(3,), (2, 1, 1, 1)])
-('3;2,1,1,1', '$3;\\\\ 2,1^{3}$')
+('3;2,1,1,1', '$3;\\\\allowbreak\\\\ 2,1^{3}$')
 >>> count_noun(1, "cover"), count_noun(2, "cover"), count_noun(2, "stratum", "strata")
 ('1 cover', '2 covers', '2 strata')
 """
@@ -53,7 +54,7 @@ def profiles_latex(profiles: Sequence[Iterable[int]]) -> str:
     """Profiles in LaTeX, in math mode; ``--`` when there are none."""
     if not profiles:
         return "--"
-    return "$" + r";\ ".join(profile_latex(p) for p in profiles) + "$"
+    return "$" + r";\allowbreak\ ".join(profile_latex(p) for p in profiles) + "$"
 
 
 def count_noun(n: int, noun: str, plural: str | None = None) -> str:

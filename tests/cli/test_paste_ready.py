@@ -160,7 +160,7 @@ def test_one_profile_form_per_medium():
     latex = run("count", *problem, "-f", "latex").stdout
     assert "2,1^2; 2,1^2; 4; 4" in table
     assert "2,1,1;2,1,1;4;4" in csv_text
-    assert r"$2,1^{2};\ 2,1^{2};\ 4;\ 4$" in latex
+    assert r"$2,1^{2};\allowbreak\ 2,1^{2};\allowbreak\ 4;\allowbreak\ 4$" in latex
     cat = run("catalogue", "-g", "2", "-t", "1", "-d", "3", "-f", "csv").stdout
     assert "1,1,1" in cat and "1^3" not in cat
     cat_table = run("catalogue", "-g", "2", "-t", "1", "-d", "3", env={"COLUMNS": "250"}).stdout
