@@ -65,7 +65,7 @@ def bench_oracle(degrees) -> None:
         strata = [s.graph for s in base_strata(1, profiles, 2, labeled=True)]
         engine, n_engine = _best_of(5, lambda: sum(1 for g in strata for _ in glued_covers(g, d, profiles)))
         oracle, n_oracle = _best_of(5, lambda: sum(
-            len(brute_force_covers(d, g.genera, g.edges, g.legs, profiles)) for g in strata))
+            len(brute_force_covers(d, g.vertex_genera, g.nodes, g.vertex_legs, profiles)) for g in strata))
         print(f"engine vs brute-force oracle, D={d}, codim<=2 ({len(strata)} strata), best of 5: engine "
               f"{engine:.3f} s, oracle {oracle:.2f} s, speed-up x{oracle / engine:.1f}; covers "
               f"{n_engine} vs {n_oracle}{'' if n_engine == n_oracle else ' MISMATCH'}", flush=True)

@@ -25,8 +25,9 @@ _PUBLIC = {
         "graph_to_networkx", "graph_from_networkx", "stratum_to_networkx", "stratum_from_networkx",
         "cover_to_networkx", "cover_from_networkx", "CoverMap", "networkx_automorphisms", "networkx_isomorphic")},
     "HurwitzProblem": "covertree.hurwitz.problem",
-    "DualGraph": "covertree.graphs.dual_graph",
-    "StableGraph": "covertree.graphs.dual_graph",
+    "CurveGraph": "covertree.graphs.curve_graph",
+    "StableCurveGraph": "covertree.graphs.curve_graph",
+    "Vertex": "covertree.graphs.curve_graph",
     "parse_graph": "covertree.graphs.notation",
     "CovertreeError": "covertree.errors",
 }

@@ -57,7 +57,7 @@ from covertree.export.rational import latex_rational, rational_str
 from covertree.export.series import series_rows, series_summary, series_to_csv, series_to_dict, series_to_json, \
     series_to_latex
 from covertree.export.tallies import tallies_to_dict, tallies_to_json
-from covertree.graphs.dual_graph import DualGraph, StableGraph
+from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 from covertree.graphs.enumerate import stable_graphs
 from covertree.graphs.notation import parse_graph
 from covertree.hurwitz.numbers import hurwitz_numbers
@@ -194,7 +194,7 @@ class StrataList(Result):
 
     target_genus: int
     points: int
-    graphs: tuple[StableGraph, ...]
+    graphs: tuple[StableCurveGraph, ...]
 
     def to_json(self) -> str:
         return strata_json(self.target_genus, self.points, self.graphs)
@@ -233,7 +233,7 @@ def _engine(engine: str) -> None:
         raise InputError(f"engine {engine!r} is not allowed; allowed: {', '.join(ENGINES)}")
 
 
-def _stratum(stratum: str | StableGraph | None) -> StableGraph | None:
+def _stratum(stratum: str | StableCurveGraph | None) -> StableCurveGraph | None:
     return parse_graph(stratum) if isinstance(stratum, str) else stratum
 
 
@@ -302,7 +302,7 @@ class CatalogueResult(Result):
                 ("base stratum", "codim", "orbit", "covers", "total weight", "Hurwitz number", "identity"), rows)
 
 
-def cover_catalogue(problem: HurwitzProblem, codim: int = 1, stratum: str | StableGraph | None = None,
+def cover_catalogue(problem: HurwitzProblem, codim: int = 1, stratum: str | StableCurveGraph | None = None,
                     labeled: bool = False, engine: str = "list", max_covers: int = DEFAULT_MAX_COVERS
                     ) -> CatalogueResult:
     """Every admissible cover over each base stratum of codimension ``<= codim``
@@ -331,7 +331,7 @@ class PullbackResult(Result):
 
     data: Pullback
 
-    def coefficient(self, divisor: str | StableGraph, delta: str) -> Fraction:
+    def coefficient(self, divisor: str | StableCurveGraph, delta: str) -> Fraction:
         """``c(D, delta)`` at the row of base divisor ``divisor`` (a graph or its
         notation; the orbit's representative unless the table is labelled).
 

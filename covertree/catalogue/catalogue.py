@@ -24,7 +24,7 @@ from fractions import Fraction
 
 from covertree.catalogue.covers import Cover, stratum_covers
 from covertree.errors import GraphError, LimitError
-from covertree.graphs.dual_graph import DualGraph, StableGraph
+from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 from covertree.hurwitz.marks import labellings
 from covertree.hurwitz.numbers import connected_hurwitz
 from covertree.hurwitz.problem import HurwitzProblem
@@ -51,19 +51,19 @@ class StratumResult:
         """The degeneration identity: total weight == Hurwitz number."""
         return self.total_weight == self.hurwitz_number
 
-    def by_source(self) -> list[tuple[DualGraph, Fraction]]:
+    def by_source(self) -> list[tuple[CurveGraph, Fraction]]:
         """Summed weight per stable source stratum, sorted canonically."""
         return weight_by_graph((c.stable_source, c.weight) for c in self.covers)
 
 
-def weight_by_graph(items: Iterable[tuple[DualGraph, Fraction]]) -> list[tuple[DualGraph, Fraction]]:
+def weight_by_graph(items: Iterable[tuple[CurveGraph, Fraction]]) -> list[tuple[CurveGraph, Fraction]]:
     """Sum the weights of equal graphs; sorted by ``(codim, key)``.
 
-    >>> g = DualGraph([2], [])
+    >>> g = CurveGraph([2])
     >>> weight_by_graph([(g, Fraction(1, 2)), (g, Fraction(1, 2))])
-    [(<DualGraph g2>, Fraction(1, 1))]
+    [(<CurveGraph g2>, Fraction(1, 1))]
     """
-    tally: dict[DualGraph, Fraction] = {}
+    tally: dict[CurveGraph, Fraction] = {}
     for graph, weight in items:
         tally[graph] = tally.get(graph, Fraction(0)) + weight
     return sorted(tally.items(), key=lambda kv: (kv[0].codim, kv[0].key))
@@ -88,7 +88,7 @@ class Catalogue:
         return sum(len(s.covers) for s in self.strata)
 
 
-def select_strata(problem: HurwitzProblem, max_codim: int = 1, stratum: StableGraph | None = None,
+def select_strata(problem: HurwitzProblem, max_codim: int = 1, stratum: StableCurveGraph | None = None,
                   labeled: bool = False) -> list[BaseStratum]:
     """The base strata of a run: all of codimension ``<= max_codim`` (grouped by
     equal-profile relabelling unless ``labeled``), or the single ``stratum``."""
@@ -96,7 +96,7 @@ def select_strata(problem: HurwitzProblem, max_codim: int = 1, stratum: StableGr
     fixed = {j for j, _ in problem.marks}
     if stratum is None:
         return base_strata(problem.target_genus, profiles, max_codim, labeled=labeled, fixed=fixed)
-    if not isinstance(stratum, StableGraph) or stratum.genus != problem.target_genus:
+    if not isinstance(stratum, StableCurveGraph) or stratum.genus != problem.target_genus:
         raise GraphError(
             f"stratum {stratum.notation!r} is not a stable graph of genus "
             f"{problem.target_genus} (the target genus)"
@@ -127,7 +127,7 @@ def problem_hurwitz(problem: HurwitzProblem) -> Fraction:
     return plain * labellings(profiles, problem.marks)
 
 
-def build_catalogue(problem: HurwitzProblem, max_codim: int = 1, stratum: StableGraph | None = None,
+def build_catalogue(problem: HurwitzProblem, max_codim: int = 1, stratum: StableCurveGraph | None = None,
                     labeled: bool = False, max_covers: int = DEFAULT_MAX_COVERS) -> Catalogue:
     """List every cover over every selected base stratum.
 

@@ -21,7 +21,7 @@ from fractions import Fraction
 
 from covertree.errors import IdentityError
 from covertree.gluing.covers import GluedCover, glued_covers
-from covertree.graphs.dual_graph import DualGraph, StableGraph
+from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 from covertree.hurwitz.problem import source_genus
 from covertree.stabilisation.stabilise import Stabilised, stabilise
 
@@ -34,10 +34,10 @@ class Cover:
     ----------
     edge_profiles : tuple of tuple of int
         Profile over each base node, in the base's edge order.
-    source : DualGraph
+    source : CurveGraph
         Dual graph of the source curve (often unstable).
-    stable_source : DualGraph
-        Its stabilisation (a :class:`StableGraph` when the genus is >= 2).
+    stable_source : CurveGraph
+        Its stabilisation (a :class:`StableCurveGraph` when the genus is >= 2).
     automorphisms, multiplicity : int
     raw : GluedCover
         The glued monodromy data (pieces, ports, node indices).
@@ -47,8 +47,8 @@ class Cover:
     """
 
     edge_profiles: tuple[tuple[int, ...], ...]
-    source: DualGraph
-    stable_source: DualGraph
+    source: CurveGraph
+    stable_source: CurveGraph
     automorphisms: int
     multiplicity: int
     raw: GluedCover = field(compare=False, repr=False)
@@ -69,16 +69,16 @@ class Cover:
         return (self.edge_profiles, self.stable_source.key, self.source.key, self.raw.code)
 
 
-def divisor_name(graph: DualGraph) -> str | None:
+def divisor_name(graph: CurveGraph) -> str | None:
     """The name of a codimension-one stratum of ``Mbar_g`` or ``Mbar_{g,n}``:
     ``delta_0`` (irreducible, one loop) or, without legs, ``delta_i``
     (separating, genus ``i <= g/2`` on one side) and, with legs,
     ``delta_i_{a,b,...}`` (the names of :mod:`covertree.intersection.boundary`);
     ``None`` for other codimensions or when there is no such moduli space.
 
-    >>> divisor_name(StableGraph([1, 2], [(0, 1)]))
+    >>> divisor_name(StableCurveGraph([1, 2], nodes=[(0, 1)]))
     'delta_1'
-    >>> divisor_name(StableGraph([1, 1], [(0, 1)], [[], [1]]))
+    >>> divisor_name(StableCurveGraph([1, (1, [1])], nodes=[(0, 1)]))
     'delta_1_{}'
     """
     n = graph.n_legs
@@ -87,8 +87,8 @@ def divisor_name(graph: DualGraph) -> str | None:
     if graph.n_vertices == 1:
         return "delta_0"
     if not n:
-        return f"delta_{min(graph.genera)}"
-    return separating_name(graph.genus, n, graph.genera[0], graph.legs[0])
+        return f"delta_{min(graph.vertex_genera)}"
+    return separating_name(graph.genus, n, graph.genus_at(0), graph.legs_at(0))
 
 
 def separating_name(genus: int, n: int, side_genus: int, side_legs: Sequence[int]) -> str:
@@ -109,10 +109,10 @@ def legs_per_vertex(n_vertices: int, carriers: Sequence[int]) -> tuple[tuple[int
 
 
 def make_graph(genera: Sequence[int], edges: Sequence[tuple[int, int]],
-               legs: Sequence[Sequence[int]] | None = None) -> DualGraph:
-    """A :class:`StableGraph` when stable, else a :class:`DualGraph`."""
-    graph = DualGraph(genera, edges, legs)
-    return StableGraph(genera, edges, legs) if graph.is_stable() else graph
+               legs: Sequence[Sequence[int]] | None = None) -> CurveGraph:
+    """A :class:`StableCurveGraph` when stable, else a :class:`CurveGraph`."""
+    graph = CurveGraph._from_parts(genera, edges, legs)
+    return StableCurveGraph._from_parts(genera, edges, legs) if graph.is_stable() else graph
 
 
 def to_cover(raw: GluedCover, genus: int) -> Cover:
@@ -128,7 +128,7 @@ def to_cover(raw: GluedCover, genus: int) -> Cover:
     return Cover(raw.edge_profiles, source, stable, raw.automorphisms, raw.multiplicity, raw, stab)
 
 
-def stratum_covers(base: DualGraph, degree: int, profiles: Sequence[Sequence[int]],
+def stratum_covers(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]],
                    marks: Sequence[tuple[int, int]] = ()) -> Iterator[Cover]:
     """Every admissible cover over a fixed curve of type ``base`` (marked
     covers when ``marks`` are given), streamed in the engine's deterministic

@@ -212,7 +212,7 @@ def _source_indices(cover: Cover) -> tuple[int, ...]:
          raw.source_edge_index[k])
         for k in edge_order
     )
-    if tuple(r[0] for r in rows) != tuple(cover.source.edges):  # pragma: no cover - a bug
+    if tuple(r[0] for r in rows) != tuple(cover.source.nodes):  # pragma: no cover - a bug
         raise IdentityError(f"source nodes do not match the source {cover.source.notation}")
     return tuple(r[1] for r in rows)
 
@@ -230,7 +230,7 @@ def _stable_nodes(cover: Cover, big_l: int) -> tuple[StableNode, ...]:
         out.append([ends, orders[raw_k], node_type(stab.genera, stab.edges, raw_k), stab.chains[raw_k]])
     # parallel nodes are interchangeable positions: sort them by order
     out.sort(key=lambda x: (x[0], x[1]))
-    expected = tuple(cover.stable_source.edges)
+    expected = tuple(cover.stable_source.nodes)
     if tuple(x[0] for x in out) != expected:  # pragma: no cover - a bug
         raise IdentityError(
             f"stable nodes {[x[0] for x in out]} do not match the stable source {cover.stable_source.notation}"

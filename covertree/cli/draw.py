@@ -8,7 +8,7 @@ import click
 
 from covertree.cli.params import OneLineCommand
 from covertree.errors import GraphError, InputError
-from covertree.graphs.dual_graph import DualGraph, StableGraph
+from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 from covertree.graphs.notation import parse_graph
 
 
@@ -34,24 +34,24 @@ def command(notation, cover_file, line, output):
         return
     record = _record(cover_file, line)
     try:
-        base = StableGraph.from_dict(record["base"])
+        base = StableCurveGraph.from_dict(record["base"])
         source = _graph(record["source"])
         profiles = record["edge_profiles"]
     except (KeyError, TypeError) as error:
         raise InputError(f"line {line} is not a cover of a JSON-lines catalogue (missing {error})") from None
     indices = (record.get("local_structure") or {}).get("source_edge_indices")
-    source_labels = [str(e) for e in indices] if indices else [""] * source.n_edges
+    source_labels = [str(e) for e in indices] if indices else [""] * source.n_nodes
     base_labels = [",".join(map(str, p)) for p in profiles]
     degree = sum(profiles[0]) if profiles else None
     title = f"{source.notation}  ->  {base.notation}"
     draw_pair(source, source_labels, base, base_labels, degree, output, title)
 
 
-def _graph(data) -> DualGraph:
+def _graph(data) -> CurveGraph:
     try:
-        return StableGraph.from_dict(data)
+        return StableCurveGraph.from_dict(data)
     except GraphError:
-        return DualGraph.from_dict(data)
+        return CurveGraph.from_dict(data)
 
 
 def _record(handle, line: int) -> dict:

@@ -36,7 +36,7 @@ stabilisation merged into it) and its type (``delta_0`` non-separating,
 ``stable_node_types`` (per stable node, joined by ``;``; empty off
 codimension one).
 
-``GRAPH`` is :meth:`covertree.graphs.dual_graph.DualGraph.to_dict`; base legs
+``GRAPH`` is :meth:`covertree.graphs.curve_graph.CurveGraph.to_dict`; base legs
 are the branch points ``1..b`` in the order of ``profiles``; ``edge_profiles``
 follow the base's ``edges`` order.  Exact rationals are strings ``"p/q"``.
 

@@ -70,12 +70,12 @@ def _suffix(path: str) -> str:
 def _panel(ax, graph, labels: Sequence[str] | None, shift: float, tools) -> tuple[float, float, float, float]:
     """Draw one graph shifted right by ``shift``; return its bounding box."""
     _plt, Circle, _Arrow, PathPatch, Path = tools
-    lay = layout(graph.n_vertices, graph.edges, graph.legs)
+    lay = layout(graph.n_vertices, graph.nodes, graph.vertex_legs)
     pos = [(x + shift, y) for x, y in lay.positions]
     xs = [p[0] for p in pos]
     ys = [p[1] for p in pos]
     text_box = {"boxstyle": "round,pad=0.12", "facecolor": "white", "edgecolor": "none"}
-    for k, (a, b) in enumerate(graph.edges):
+    for k, (a, b) in enumerate(graph.nodes):
         if a == b:
             angle = math.radians(lay.loop_angles[k])
             cx = pos[a][0] + (VERTEX_RADIUS + LOOP_RADIUS) * math.cos(angle)
@@ -84,18 +84,18 @@ def _panel(ax, graph, labels: Sequence[str] | None, shift: float, tools) -> tupl
             lx, ly = pos[a][0] + LOOP_REACH * math.cos(angle), pos[a][1] + LOOP_REACH * math.sin(angle)
         else:
             (x0, y0), (x1, y1) = pos[a], pos[b]
-            cx, cy = lay.control(graph.edges, k)
+            cx, cy = lay.control(graph.nodes, k)
             cx += shift
             path = Path([(x0, y0), (cx, cy), (x1, y1)], [Path.MOVETO, Path.CURVE3, Path.CURVE3])
             ax.add_patch(PathPatch(path, fill=False, linewidth=1.4, zorder=1))
-            lx, ly = lay.edge_point(graph.edges, k, lay.label_pos[k])
+            lx, ly = lay.edge_point(graph.nodes, k, lay.label_pos[k])
             lx += shift
         xs.append(lx)
         ys.append(ly)
         if labels is not None and labels[k] != "":
             ax.text(lx, ly, labels[k], ha="center", va="center", fontsize=9, bbox=text_box, zorder=3)
     flat = 0
-    for v, legs in enumerate(graph.legs):
+    for v, legs in enumerate(graph.vertex_legs):
         for j in legs:
             angle = math.radians(lay.leg_angles[flat])
             flat += 1
@@ -108,7 +108,7 @@ def _panel(ax, graph, labels: Sequence[str] | None, shift: float, tools) -> tupl
             ys.append(ly)
     for v, (x, y) in enumerate(pos):
         ax.add_patch(Circle((x, y), VERTEX_RADIUS, facecolor="white", edgecolor="black", linewidth=1.6, zorder=2))
-        ax.text(x, y, str(graph.genera[v]), ha="center", va="center", fontsize=11, zorder=3)
+        ax.text(x, y, str(graph.vertex_genera[v]), ha="center", va="center", fontsize=11, zorder=3)
     return min(xs), max(xs), min(ys), max(ys)
 
 
@@ -130,7 +130,7 @@ def _finish(fig, ax, box, title: str | None, path: str, plt) -> None:
 
 
 def draw_graph(graph, path: str, labels: Sequence[str] | None = None, title: str | None = None) -> None:
-    """Write an image of ``graph`` (a :class:`~covertree.graphs.dual_graph.DualGraph`)
+    """Write an image of ``graph`` (a :class:`~covertree.graphs.curve_graph.CurveGraph`)
     to ``path`` (``.svg`` or ``.png``); ``labels`` one per edge, canonical order."""
     _suffix(path)
     tools = _pyplot()
@@ -150,7 +150,7 @@ def draw_pair(source, source_labels: Sequence[str], base, base_labels: Sequence[
     plt, FancyArrowPatch = tools[0], tools[2]
     fig, ax = plt.subplots()
     sx0, sx1, sy0, sy1 = _panel(ax, source, source_labels, 0.0, tools)
-    base_lay = layout(base.n_vertices, base.edges, base.legs)
+    base_lay = layout(base.n_vertices, base.nodes, base.vertex_legs)
     base_left = min(x for x, _ in base_lay.positions) - LEG - 0.4
     shift = sx1 + GAP - base_left
     bx0, bx1, by0, by1 = _panel(ax, base, base_labels, shift, tools)

@@ -4,7 +4,7 @@ The JSON shape is a contract::
 
     {"target_genus": h, "points": n, "strata": [GRAPH, ...]}
 
-with ``GRAPH`` as in :meth:`covertree.graphs.dual_graph.DualGraph.to_dict`.
+with ``GRAPH`` as in :meth:`covertree.graphs.curve_graph.CurveGraph.to_dict`.
 
 Examples
 --------
@@ -32,7 +32,7 @@ import io
 import json
 from collections.abc import Sequence
 
-from covertree.graphs.dual_graph import DualGraph
+from covertree.graphs.curve_graph import CurveGraph
 
 __all__ = ["STRATA_COLUMNS", "latex_escape", "notation_math", "strata_csv", "strata_json", "strata_latex", "strata_rows"]
 
@@ -40,7 +40,7 @@ __all__ = ["STRATA_COLUMNS", "latex_escape", "notation_math", "strata_csv", "str
 STRATA_COLUMNS = ("index", "codim", "vertices", "automorphisms", "notation")
 
 
-def strata_rows(graphs: Sequence[DualGraph]) -> list[tuple]:
+def strata_rows(graphs: Sequence[CurveGraph]) -> list[tuple]:
     """One row ``(index, codim, vertices, automorphisms, notation)`` per graph,
     numbered from 1.
 
@@ -56,7 +56,7 @@ def strata_rows(graphs: Sequence[DualGraph]) -> list[tuple]:
     ]
 
 
-def strata_json(target_genus: int, points: int, graphs: Sequence[DualGraph]) -> str:
+def strata_json(target_genus: int, points: int, graphs: Sequence[CurveGraph]) -> str:
     """The JSON document ``{"target_genus", "points", "strata"}``.
 
     Examples
@@ -74,7 +74,7 @@ def strata_json(target_genus: int, points: int, graphs: Sequence[DualGraph]) -> 
     return json.dumps(document, indent=2) + "\n"
 
 
-def strata_csv(graphs: Sequence[DualGraph]) -> str:
+def strata_csv(graphs: Sequence[CurveGraph]) -> str:
     """CSV with a header row and the columns of :data:`STRATA_COLUMNS`."""
     buffer = io.StringIO()
     writer = csv.writer(buffer, lineterminator="\n")
@@ -83,7 +83,7 @@ def strata_csv(graphs: Sequence[DualGraph]) -> str:
     return buffer.getvalue()
 
 
-def strata_latex(graphs: Sequence[DualGraph]) -> str:
+def strata_latex(graphs: Sequence[CurveGraph]) -> str:
     """A LaTeX ``tabular`` (no packages needed) listing the strata."""
     lines = [
         r"\begin{tabular}{rrrrl}",

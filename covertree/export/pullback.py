@@ -10,7 +10,7 @@ The JSON document is a contract (keys are only ever added)::
 
 with one coefficient per boundary divisor ``delta_0..delta_{floor(G/2)}`` of
 ``Mbar_G`` (zeros included); ``GRAPH`` as in
-:meth:`covertree.graphs.dual_graph.DualGraph.to_dict`.  The CSV has one row per
+:meth:`covertree.graphs.curve_graph.CurveGraph.to_dict`.  The CSV has one row per
 base divisor: ``base, orbit_size, delta_0, ..., branch_total, hurwitz_number,
 check``.
 

@@ -271,10 +271,10 @@ def _extent(genera, edges, legs) -> float:
 
 
 def graph_to_tikz(graph, edge_labels: Sequence[str] | None = None) -> str:
-    """One ``tikzpicture`` of a :class:`~covertree.graphs.dual_graph.DualGraph`
+    """One ``tikzpicture`` of a :class:`~covertree.graphs.curve_graph.CurveGraph`
     (edges in its canonical order; ``edge_labels`` one per edge)."""
     lines = [r"\begin{tikzpicture}" + _STYLES]
-    lines += _picture_lines(graph.genera, graph.edges, graph.legs, edge_labels, "v", (0.0, 0.0))
+    lines += _picture_lines(graph.vertex_genera, graph.nodes, graph.vertex_legs, edge_labels, "v", (0.0, 0.0))
     lines.append(r"\end{tikzpicture}")
     return "\n".join(lines)
 
@@ -282,12 +282,12 @@ def graph_to_tikz(graph, edge_labels: Sequence[str] | None = None) -> str:
 def pair_to_tikz(source, source_labels: Sequence[str], base, base_labels: Sequence[str], degree: int) -> str:
     """One ``tikzpicture``: the graph ``source`` (edge labels ``source_labels``),
     an arrow marked with the degree, and the graph ``base``."""
-    left = _extent(source.genera, source.edges, source.legs)
-    right = _extent(base.genera, base.edges, base.legs)
+    left = _extent(source.vertex_genera, source.nodes, source.vertex_legs)
+    right = _extent(base.vertex_genera, base.nodes, base.vertex_legs)
     gap = 1.6
     lines = [r"\begin{tikzpicture}" + _STYLES]
-    lines += _picture_lines(source.genera, source.edges, source.legs, source_labels, "s", (0.0, 0.0))
-    lines += _picture_lines(base.genera, base.edges, base.legs, base_labels, "b", (left + gap + right, 0.0))
+    lines += _picture_lines(source.vertex_genera, source.nodes, source.vertex_legs, source_labels, "s", (0.0, 0.0))
+    lines += _picture_lines(base.vertex_genera, base.nodes, base.vertex_legs, base_labels, "b", (left + gap + right, 0.0))
     lines.append(f"  \\draw[->,thick] ({_fmt(left + 0.1)},0) -- node[above,font=\\scriptsize] "
                  f"{{$\\times{degree}$}} ({_fmt(left + gap - 0.1)},0);")
     lines.append(r"\end{tikzpicture}")

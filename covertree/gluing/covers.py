@@ -21,8 +21,8 @@ Double covers of an elliptic curve branched at two points, over the stratum of
 a rational curve with one node (three covers, total weight 2):
 
 >>> from fractions import Fraction
->>> from covertree.graphs.dual_graph import StableGraph
->>> base = StableGraph([0], [(0, 0)], [[1, 2]])
+>>> from covertree.graphs.curve_graph import StableCurveGraph
+>>> base = StableCurveGraph([(0, [1, 2])], nodes=[(0, 0)])
 >>> covers = list(glued_covers(base, 2, [(2,), (2,)]))
 >>> sorted((c.edge_profiles, c.automorphisms, c.multiplicity) for c in covers)
 [(((1, 1),), 2, 1), (((1, 1),), 2, 1), (((2,),), 2, 2)]
@@ -40,7 +40,7 @@ from functools import lru_cache
 from math import factorial, prod
 
 from covertree.errors import IdentityError
-from covertree.graphs.dual_graph import DualGraph
+from covertree.graphs.curve_graph import CurveGraph
 from covertree.gluing.structure import Glued, Port, canonical_code, least_cycles, piece_cycles
 from covertree.monodromy.local import LocalCover, local_covers, special_points
 from covertree.monodromy.pieces import Piece
@@ -86,7 +86,7 @@ def _local_covers(degree: int, genus: int, profiles: tuple) -> tuple[LocalCover,
     return tuple(local_covers(degree, genus, profiles))
 
 
-def glued_covers(base: DualGraph, degree: int, profiles: Sequence[Sequence[int]],
+def glued_covers(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]],
                  marks: Sequence[tuple[int, int]] = ()) -> Iterator[GluedCover]:
     """Every admissible cover with connected source over a fixed curve of type
     ``base`` (legs ``j`` of profile ``profiles[j-1]``), each class once, in a
@@ -96,8 +96,8 @@ def glued_covers(base: DualGraph, degree: int, profiles: Sequence[Sequence[int]]
     :mod:`covertree.hurwitz.marks`) every marked cover is listed once: the
     labellings of the marked points of each cover, up to its automorphisms.
 
-    >>> from covertree.graphs.dual_graph import StableGraph
-    >>> base = StableGraph([1], [], [[1]])
+    >>> from covertree.graphs.curve_graph import StableCurveGraph
+    >>> base = StableCurveGraph([(1, [1])])
     >>> [(c.automorphisms, c.source_legs) for c in glued_covers(base, 2, [(1, 1)], [(1, 1)])]
     [(1, (0,)), (1, (0,)), (1, (0,))]
     """
@@ -107,14 +107,14 @@ def glued_covers(base: DualGraph, degree: int, profiles: Sequence[Sequence[int]]
             yield cover
 
 
-def balanced_choices(base: DualGraph, degree: int, profiles: Sequence[Sequence[int]]) -> Iterator[list[LocalCover]]:
+def balanced_choices(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]]) -> Iterator[list[LocalCover]]:
     """Every choice of one local cover per base vertex with equal profiles
     across each node (the balancing condition)."""
     specs = special_points(base)
     options = []
     for v, spec in enumerate(specs):
         prof = tuple(tuple(profiles[s[1] - 1]) if s[0] == "leg" else None for s in spec)
-        options.append(_local_covers(degree, base.genera[v], prof))
+        options.append(_local_covers(degree, base.vertex_genera[v], prof))
     yield from _balanced_choices(base, specs, options)
 
 
@@ -122,10 +122,10 @@ def _half_index(specs: list, v: int, k: int, side: int) -> int:
     return specs[v].index(("half", k, side))
 
 
-def _balanced_choices(base: DualGraph, specs: list, options: list) -> Iterator[list[LocalCover]]:
+def _balanced_choices(base: CurveGraph, specs: list, options: list) -> Iterator[list[LocalCover]]:
     """Choices of one local cover per vertex with equal profiles across nodes."""
     checks: list[list[tuple]] = [[] for _ in specs]
-    for k, (i, j) in enumerate(base.edges):
+    for k, (i, j) in enumerate(base.nodes):
         later = max(i, j)
         checks[later].append((i, _half_index(specs, i, k, 0), j, _half_index(specs, j, k, 1)))
     chosen: list[LocalCover] = []
@@ -146,7 +146,7 @@ def _balanced_choices(base: DualGraph, specs: list, options: list) -> Iterator[l
 class _Matcher:
     """Enumerates the port matchings of one choice of local covers."""
 
-    def __init__(self, base: DualGraph, specs: list, choice: list[LocalCover]) -> None:
+    def __init__(self, base: CurveGraph, specs: list, choice: list[LocalCover]) -> None:
         self.vertex = [v for v, cover in enumerate(choice) for _ in cover.pieces]
         self.pieces: list[Piece] = [p for cover in choice for p in cover.pieces]
         self.halves = [
@@ -156,7 +156,7 @@ class _Matcher:
         self.sides, seen = [], set()
         for k in self._edge_order(base):
             self.sides.append(self._side_ports(base, specs, k, seen))
-            seen.update(base.edges[k])
+            seen.update(base.nodes[k])
         self.one_each = len(self.pieces) == len(set(self.vertex))
         self.twins = self._twins()
         self.least = self._least_ports()
@@ -164,11 +164,11 @@ class _Matcher:
         self.used: set[Port] = set()
 
     @staticmethod
-    def _edge_order(base: DualGraph) -> list[int]:
+    def _edge_order(base: CurveGraph) -> list[int]:
         """Loops first: they break the most symmetry."""
-        return sorted(range(base.n_edges), key=lambda k: (base.edges[k][0] != base.edges[k][1], k))
+        return sorted(range(base.n_nodes), key=lambda k: (base.nodes[k][0] != base.nodes[k][1], k))
 
-    def _side_ports(self, base: DualGraph, specs: list, k: int, seen: set[int]) -> tuple[list, list, int, bool]:
+    def _side_ports(self, base: CurveGraph, specs: list, k: int, seen: set[int]) -> tuple[list, list, int, bool]:
         """``(left, right, k, flipped)``: the ports over the two sides of edge
         ``k``; left ports are matched in order, right ones are the candidates,
         where the symmetry breaking acts, so the side whose pieces have more
@@ -177,14 +177,14 @@ class _Matcher:
         as having none."""
         ends = []
         for side in (0, 1):
-            v = base.edges[k][side]
+            v = base.nodes[k][side]
             p = _half_index(specs, v, k, side)
             ends.append([
                 ((i, p, c), len(cyc))
                 for i in range(len(self.pieces)) if self.vertex[i] == v
                 for c, cyc in enumerate(self.glued.port_cycles[i][p])
             ])
-        u, w = base.edges[k]
+        u, w = base.nodes[k]
         flipped = u != w and self._symmetry(u, seen) > self._symmetry(w, seen)
         return (ends[1], ends[0], k, True) if flipped else (ends[0], ends[1], k, False)
 
@@ -271,13 +271,13 @@ class _Matcher:
         return False
 
 
-def _gluings(base: DualGraph, specs: list, choice: list[LocalCover],
+def _gluings(base: CurveGraph, specs: list, choice: list[LocalCover],
              marks: Sequence[tuple[int, int]] = ()) -> Iterator[GluedCover]:
     m = _Matcher(base, specs, choice)
     candidates = _mark_candidates(base, specs, m, marks)
     edge_profiles = tuple(
-        choice[base.edges[k][0]].profiles[_half_index(specs, base.edges[k][0], k, 0)]
-        for k in range(base.n_edges)
+        choice[base.nodes[k][0]].profiles[_half_index(specs, base.nodes[k][0], k, 0)]
+        for k in range(base.n_nodes)
     )
     mult = prod(x for prof in edge_profiles for x in prof)
     seen: set[tuple] = set()
@@ -292,7 +292,7 @@ def _gluings(base: DualGraph, specs: list, choice: list[LocalCover],
         yield from _marked(m, record, candidates) if marks else (record,)
 
 
-def _mark_candidates(base: DualGraph, specs: list, m: "_Matcher", marks) -> list[list]:
+def _mark_candidates(base: CurveGraph, specs: list, m: "_Matcher", marks) -> list[list]:
     """Per leg ``(J, e)``: the ports ``(piece, point, cycle)`` that are points of
     index ``e`` over branch point ``J``."""
     where = {s[1]: (v, p) for v, spec in enumerate(specs) for p, s in enumerate(spec) if s[0] == "leg"}

@@ -31,7 +31,7 @@ from functools import lru_cache
 
 from covertree.errors import GraphError
 from covertree.graphs.canonical import _certify
-from covertree.graphs.dual_graph import StableGraph, _relabelled
+from covertree.graphs.curve_graph import StableCurveGraph, _relabelled
 
 __all__ = ["stable_graphs", "max_codimension"]
 
@@ -60,7 +60,7 @@ def max_codimension(genus: int, n: int) -> int:
     return 3 * genus - 3 + n
 
 
-def stable_graphs(genus: int, n: int, max_codim: int | None = None) -> list[StableGraph]:
+def stable_graphs(genus: int, n: int, max_codim: int | None = None) -> list[StableCurveGraph]:
     """Every stable graph of type ``(genus, n)`` with at most ``max_codim`` edges.
 
     Parameters
@@ -72,7 +72,7 @@ def stable_graphs(genus: int, n: int, max_codim: int | None = None) -> list[Stab
 
     Returns
     -------
-    list of StableGraph
+    list of StableCurveGraph
         One per isomorphism class (fixing legs), sorted by ``(codim, key)``.
 
     Raises
@@ -92,10 +92,10 @@ def stable_graphs(genus: int, n: int, max_codim: int | None = None) -> list[Stab
         max_codim = top
     if not isinstance(max_codim, int) or isinstance(max_codim, bool) or max_codim < 0:
         raise GraphError(f"the codimension must be an integer >= 0, got {max_codim!r}")
-    out: list[StableGraph] = []
+    out: list[StableCurveGraph] = []
     for k in range(min(max_codim, top) + 1):
         for key, genera, edges, legs, aut_v in _layer(genus, n, k):
-            out.append(StableGraph._from_canonical(genera, edges, legs, key, aut_v))
+            out.append(StableCurveGraph._from_canonical(genera, edges, legs, key, aut_v))
     return out
 
 

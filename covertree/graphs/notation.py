@@ -18,7 +18,7 @@ Grammar (whitespace is allowed between any two tokens)::
 The printed form is canonical (canonical vertex and edge order, parallel
 edges and loops merged with ``^``), so two graphs are isomorphic exactly when
 they print the same.  Any graph parses, stable or not; :func:`parse_graph`
-returns a :class:`~covertree.graphs.dual_graph.StableGraph` when it is stable.
+returns a :class:`~covertree.graphs.curve_graph.StableCurveGraph` when it is stable.
 
 Examples
 --------
@@ -41,7 +41,7 @@ written loosely:
 Unstable graphs parse too:
 
 >>> type(parse_graph("g0{1}, g0 | 0-1")).__name__
-'DualGraph'
+'CurveGraph'
 >>> parse_graph("g0{1} | 0-2")
 Traceback (most recent call last):
 ...
@@ -51,23 +51,23 @@ covertree.errors.NotationError: column 10: vertex index 2 out of range (the grap
 from __future__ import annotations
 
 from covertree.errors import GraphError, NotationError
-from covertree.graphs.dual_graph import DualGraph, StableGraph
+from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 
 __all__ = ["format_graph", "parse_graph"]
 
 
-def format_graph(g: DualGraph) -> str:
+def format_graph(g: CurveGraph) -> str:
     """The canonical one-line notation of ``g``.
 
     Examples
     --------
-    >>> format_graph(StableGraph([0], [(0, 0), (0, 0)], [[1]]))
+    >>> format_graph(StableCurveGraph([(0, [1])], nodes=[(0, 0), (0, 0)]))
     'g0{1} | 0-0^2'
     """
-    vertices = ", ".join(_format_vertex(genus, legs) for genus, legs in zip(g.genera, g.legs))
-    if not g.edges:
+    vertices = ", ".join(_format_vertex(genus, legs) for genus, legs in zip(g.vertex_genera, g.vertex_legs))
+    if not g.nodes:
         return vertices
-    return f"{vertices} | {', '.join(_format_edges(g.edges))}"
+    return f"{vertices} | {', '.join(_format_edges(g.nodes))}"
 
 
 def _format_vertex(genus: int, legs: tuple[int, ...]) -> str:
@@ -89,8 +89,8 @@ def _format_edges(edges: tuple[tuple[int, int], ...]) -> list[str]:
     return out
 
 
-def parse_graph(text: str) -> DualGraph:
-    """Parse the notation; a :class:`StableGraph` when the graph is stable.
+def parse_graph(text: str) -> CurveGraph:
+    """Parse the notation; a :class:`StableCurveGraph` when the graph is stable.
 
     Raises
     ------
@@ -102,7 +102,7 @@ def parse_graph(text: str) -> DualGraph:
     --------
     >>> parse_graph("g1 | 0-0").genus
     2
-    >>> parse_graph("g0 | 0-0^2") == StableGraph([0], [(0, 0), (0, 0)])
+    >>> parse_graph("g0 | 0-0^2") == StableCurveGraph([0], nodes=[(0, 0), (0, 0)])
     True
     >>> parse_graph("g0{1,2} g0")
     Traceback (most recent call last):
@@ -113,12 +113,12 @@ def parse_graph(text: str) -> DualGraph:
         raise NotationError(f"a graph notation is a string, not {type(text).__name__}")
     genera, legs, edges = _Parser(text).graph()
     try:
-        graph = DualGraph(genera, edges, legs)
+        graph = CurveGraph._from_parts(genera, edges, legs)
     except GraphError as error:
         raise NotationError(f"{text.strip()!r} is not a valid graph: {error}") from None
     if graph.is_stable():
-        return StableGraph._from_canonical(
-            graph.genera, graph.edges, graph.legs, graph.key, graph._aut_v
+        return StableCurveGraph._from_canonical(
+            graph.vertex_genera, graph.nodes, graph.vertex_legs, graph.key, graph._aut_v
         )
     return graph
 

@@ -91,7 +91,7 @@ from covertree.catalogue.covers import Cover, make_graph
 from covertree.errors import GraphError
 from covertree.export.rational import rational_str
 from covertree.graphs.canonical import canonical_form
-from covertree.graphs.dual_graph import DualGraph, StableGraph
+from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 from covertree.strata.base import BaseStratum
 
 __all__ = [
@@ -113,20 +113,20 @@ __all__ = [
 # ---------------------------------------------------------------------------
 
 
-def graph_to_networkx(graph: DualGraph) -> nx.MultiGraph:
+def graph_to_networkx(graph: CurveGraph) -> nx.MultiGraph:
     """The multigraph of a dual graph (attributes in the module docstring).
 
     Examples
     --------
-    >>> from covertree.graphs import StableGraph
-    >>> G = graph_to_networkx(StableGraph([0], [(0, 0)], [[1, 2]]))
+    >>> from covertree.graphs import StableCurveGraph
+    >>> G = graph_to_networkx(StableCurveGraph([(0, [1, 2])], nodes=[(0, 0)]))
     >>> list(G.edges(keys=True)), G.graph["notation"]
     ([(0, 0, 0)], 'g0{1,2} | 0-0')
     """
     out = nx.MultiGraph(genus=graph.genus, notation=graph.notation, stable=graph.is_stable())
-    for v, (genus, legs) in enumerate(zip(graph.genera, graph.legs)):
+    for v, (genus, legs) in enumerate(zip(graph.vertex_genera, graph.vertex_legs)):
         out.add_node(v, genus=genus, legs=tuple(legs))
-    for a, b in graph.edges:
+    for a, b in graph.nodes:
         out.add_edge(a, b)
     return out
 
@@ -145,9 +145,9 @@ def _numbered(G: nx.MultiGraph, nodes: Sequence[Hashable]) -> tuple[tuple, tuple
     return tuple(genera), edges, tuple(legs)
 
 
-def graph_from_networkx(G: nx.MultiGraph) -> DualGraph:
+def graph_from_networkx(G: nx.MultiGraph) -> CurveGraph:
     """The dual graph of a multigraph with ``genus`` (and optional ``legs``) on
-    every node: a :class:`StableGraph` when stable.
+    every node: a :class:`StableCurveGraph` when stable.
 
     Raises
     ------
@@ -167,8 +167,8 @@ def graph_from_networkx(G: nx.MultiGraph) -> DualGraph:
     if not isinstance(G, nx.MultiGraph) or G.is_directed():
         raise GraphError(f"expected an undirected networkx MultiGraph, got {type(G).__name__}")
     genera, edges, legs = _numbered(G, list(G.nodes))
-    graph = DualGraph(genera, edges, legs)
-    return StableGraph(genera, edges, legs) if graph.is_stable() else graph
+    graph = CurveGraph._from_parts(genera, edges, legs)
+    return StableCurveGraph._from_parts(genera, edges, legs) if graph.is_stable() else graph
 
 
 def stratum_to_networkx(stratum: BaseStratum) -> nx.MultiGraph:
@@ -195,7 +195,7 @@ def stratum_from_networkx(G: nx.MultiGraph) -> BaseStratum:
         If the graph is not stable, or as :func:`graph_from_networkx`.
     """
     graph = graph_from_networkx(G)
-    if not isinstance(graph, StableGraph):
+    if not isinstance(graph, StableCurveGraph):
         raise GraphError(f"{graph.notation!r} is not stable, so it is not a stratum")
     size = G.graph.get("orbit_size", 1)
     if not isinstance(size, int) or size < 1:
@@ -215,7 +215,7 @@ class CoverMap:
 
     Attributes
     ----------
-    base : StableGraph
+    base : StableCurveGraph
     genera : tuple of int
         Genus of each source component.
     over, degrees : tuple of int
@@ -235,7 +235,7 @@ class CoverMap:
         base edge not adding up to the degree, a disconnected source.
     """
 
-    base: StableGraph
+    base: StableCurveGraph
     genera: tuple[int, ...]
     over: tuple[int, ...]
     degrees: tuple[int, ...]
@@ -253,7 +253,7 @@ class CoverMap:
         self.source  # noqa: B018 - validates connectedness and genera
 
     @classmethod
-    def of(cls, cover: Cover, base: StableGraph) -> "CoverMap":
+    def of(cls, cover: Cover, base: StableCurveGraph) -> "CoverMap":
         """The map of a catalogue cover over (a fixed curve of) ``base``."""
         raw = cover.raw
         return cls(base, raw.source_genera, raw.source_vertex_over, raw.source_degrees, raw.source_edges,
@@ -265,8 +265,8 @@ class CoverMap:
         return sum(d for v, d in zip(self.over, self.degrees) if v == 0)
 
     @property
-    def source(self) -> DualGraph:
-        """The source dual graph (canonical; a :class:`StableGraph` when stable)."""
+    def source(self) -> CurveGraph:
+        """The source dual graph (canonical; a :class:`StableCurveGraph` when stable)."""
         return make_graph(self.genera, self.edges)
 
     @property
@@ -276,7 +276,7 @@ class CoverMap:
 
 
 def _check_map(m: CoverMap) -> None:
-    base_edges = m.base.edges
+    base_edges = m.base.nodes
     for i, v in enumerate(m.over):
         if not 0 <= v < m.base.n_vertices:
             raise GraphError(f"source component {i} lies over {v!r}, not a vertex of the base")
@@ -298,7 +298,7 @@ def _check_map(m: CoverMap) -> None:
             raise GraphError(f"the degree over base {place[0]} {place[1]} is {above[place]}, not {degree}")
 
 
-def cover_to_networkx(cover: Cover | CoverMap, base: StableGraph | None = None) -> nx.MultiGraph:
+def cover_to_networkx(cover: Cover | CoverMap, base: StableCurveGraph | None = None) -> nx.MultiGraph:
     """The base and the source of a cover in one multigraph, the map as
     attributes (see the module docstring).
 
@@ -306,7 +306,7 @@ def cover_to_networkx(cover: Cover | CoverMap, base: StableGraph | None = None) 
     ----------
     cover : Cover or CoverMap
         A catalogue cover (then ``base`` is its base stratum's graph) or a map.
-    base : StableGraph, optional
+    base : StableCurveGraph, optional
         Required with a :class:`~covertree.catalogue.covers.Cover`.
 
     Examples
@@ -326,9 +326,9 @@ def cover_to_networkx(cover: Cover | CoverMap, base: StableGraph | None = None) 
     m = cover if isinstance(cover, CoverMap) else CoverMap.of(cover, _required(base))
     out = nx.MultiGraph(degree=m.degree, automorphisms=m.automorphisms, multiplicity=m.multiplicity,
                         weight=rational_str(m.weight))
-    for v, (genus, legs) in enumerate(zip(m.base.genera, m.base.legs)):
+    for v, (genus, legs) in enumerate(zip(m.base.vertex_genera, m.base.vertex_legs)):
         out.add_node(("base", v), side="base", genus=genus, legs=tuple(legs))
-    for k, (a, b) in enumerate(m.base.edges):
+    for k, (a, b) in enumerate(m.base.nodes):
         out.add_edge(("base", a), ("base", b), key=k)
     for i, (genus, v, d) in enumerate(zip(m.genera, m.over, m.degrees)):
         out.add_node(("source", i), side="source", genus=genus, legs=(), over=("base", v), degree=d)
@@ -337,7 +337,7 @@ def cover_to_networkx(cover: Cover | CoverMap, base: StableGraph | None = None) 
     return out
 
 
-def _required(base: StableGraph | None) -> StableGraph:
+def _required(base: StableCurveGraph | None) -> StableCurveGraph:
     if base is None:
         raise GraphError("a Cover needs its base graph: cover_to_networkx(cover, base)")
     return base
@@ -377,12 +377,12 @@ def cover_from_networkx(G: nx.MultiGraph) -> CoverMap:
                       for a, b, key, e in G.edges(source_nodes, keys=True, data=True) if a in index and b in index)
     except KeyError as error:
         raise GraphError(f"a source node or edge lacks the attribute or names a missing base item: {error}") from None
-    edges = tuple(_oriented(a, b, k, over, base.edges) for _, a, b, k, _ in rows)
+    edges = tuple(_oriented(a, b, k, over, base.nodes) for _, a, b, k, _ in rows)
     return CoverMap(base, genera, over, degrees, edges, tuple(r[3] for r in rows), tuple(r[4] for r in rows),
                     G.graph.get("automorphisms", 1), G.graph.get("multiplicity", 1))
 
 
-def _canonical_base(G: nx.MultiGraph, nodes: list) -> tuple[StableGraph, dict, dict]:
+def _canonical_base(G: nx.MultiGraph, nodes: list) -> tuple[StableCurveGraph, dict, dict]:
     """The base in canonical form, with each base node's canonical position and
     each base edge key's canonical edge index."""
     base = stratum_from_networkx(G.subgraph(nodes)).graph
@@ -426,11 +426,11 @@ def _same_multiplicity(a: dict, b: dict) -> bool:
     return len(a) == len(b)
 
 
-def _as_networkx(graph: DualGraph | nx.MultiGraph) -> nx.MultiGraph:
+def _as_networkx(graph: CurveGraph | nx.MultiGraph) -> nx.MultiGraph:
     return graph if isinstance(graph, nx.MultiGraph) else graph_to_networkx(graph)
 
 
-def networkx_isomorphic(a: DualGraph | nx.MultiGraph, b: DualGraph | nx.MultiGraph) -> bool:
+def networkx_isomorphic(a: CurveGraph | nx.MultiGraph, b: CurveGraph | nx.MultiGraph) -> bool:
     """Whether networkx finds an isomorphism keeping genera, legs and the
     numbers of parallel edges and loops (VF2 with node and edge matching).
 
@@ -446,15 +446,15 @@ def networkx_isomorphic(a: DualGraph | nx.MultiGraph, b: DualGraph | nx.MultiGra
                             edge_match=_same_multiplicity)
 
 
-def half_edge_graph(graph: DualGraph | nx.MultiGraph) -> nx.Graph:
+def half_edge_graph(graph: CurveGraph | nx.MultiGraph) -> nx.Graph:
     """The simple graph with one node per vertex and per half-edge: each edge
     ``(a, b, key)`` becomes the path ``a - (a, b, key, 0) - (a, b, key, 1) - b``.
     Node attribute ``colour``: ``("vertex", genus, legs)`` or ``("half",)``.
 
     Examples
     --------
-    >>> from covertree.graphs import StableGraph
-    >>> H = half_edge_graph(StableGraph([1], [(0, 0)]))
+    >>> from covertree.graphs import StableCurveGraph
+    >>> H = half_edge_graph(StableCurveGraph([1], nodes=[(0, 0)]))
     >>> sorted(H.degree(u) for u in H)
     [2, 2, 2]
     """
@@ -470,7 +470,7 @@ def half_edge_graph(graph: DualGraph | nx.MultiGraph) -> nx.Graph:
     return out
 
 
-def networkx_automorphisms(graph: DualGraph | nx.MultiGraph, method: str = "half-edges") -> int:
+def networkx_automorphisms(graph: CurveGraph | nx.MultiGraph, method: str = "half-edges") -> int:
     """Order of the half-edge automorphism group (legs fixed), counted with
     networkx (both methods in the module docstring).
 
@@ -484,8 +484,8 @@ def networkx_automorphisms(graph: DualGraph | nx.MultiGraph, method: str = "half
 
     Examples
     --------
-    >>> from covertree.graphs import StableGraph
-    >>> g = StableGraph([0], [(0, 0), (0, 0)])
+    >>> from covertree.graphs import StableCurveGraph
+    >>> g = StableCurveGraph([0], nodes=[(0, 0), (0, 0)])
     >>> networkx_automorphisms(g), networkx_automorphisms(g, "vertex-maps")
     (8, 8)
     """

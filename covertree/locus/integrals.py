@@ -200,7 +200,7 @@ def stratum_keys(problem: HurwitzProblem, base: BaseStratum, engine: str, hurwit
     if engine not in ENGINES:
         raise ValueError(f"engine {engine!r}; allowed: {', '.join(ENGINES)}")
     items = _items_types(problem, base) if engine == "types" else _items_list(problem, base)
-    keys = grouped(items, base.graph.n_edges, problem.genus)
+    keys = grouped(items, base.graph.n_nodes, problem.genus)
     found = sum((k.weight * prod(e.lcm for e in k.edges) for k in keys), Fraction(0))
     if found != hurwitz:
         raise IdentityError(f"covers over {base.graph.notation} weigh {found}, not the Hurwitz number {hurwitz}")
@@ -306,7 +306,7 @@ def _stratum_sum(ring: VertexRing, keys: Sequence[CoverKey], factors: Sequence[_
         return Fraction(0)
     graph = ring.graph
     total = Fraction(0)
-    for dist in _distributions(factors, graph.n_edges):
+    for dist in _distributions(factors, graph.n_nodes):
         integral = _pattern_integral(ring, factors, dist, cache)
         if not integral:
             continue

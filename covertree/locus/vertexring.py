@@ -56,14 +56,14 @@ class VertexRing:
         self._leg_slot: dict[int, int] = {}
         self._half_slot: dict[tuple[int, int], int] = {}
         for v in range(n_v):
-            for leg in graph.legs[v]:
+            for leg in graph.vertex_legs[v]:
                 self._leg_slot[leg] = self._add_slot(v)
-        for q, (a, b) in enumerate(graph.edges):
+        for q, (a, b) in enumerate(graph.nodes):
             self._half_slot[(q, 0)] = self._add_slot(a)
             self._half_slot[(q, 1)] = self._add_slot(b)
         self._n_slots = len(self._slot_vertex)
         self._vertex_of = tuple(self._slot_vertex) + tuple(range(n_v))
-        self.dims = tuple(3 * graph.genera[v] - 3 + graph.valence(v) for v in range(n_v))
+        self.dims = tuple(3 * graph.vertex_genera[v] - 3 + graph.valence(v) for v in range(n_v))
 
     def _add_slot(self, v: int) -> int:
         self._slot_vertex.append(v)
@@ -132,5 +132,5 @@ class VertexRing:
         kappas = mono[self._n_slots :]
         if any(sum(per_vertex[v]) + kappas[v] != self.dims[v] for v in range(graph.n_vertices)):
             return Fraction(0)
-        return prod((psi_kappa_integral(graph.genera[v], per_vertex[v], kappas[v])
+        return prod((psi_kappa_integral(graph.vertex_genera[v], per_vertex[v], kappas[v])
                      for v in range(graph.n_vertices)), start=Fraction(1))

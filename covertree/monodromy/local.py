@@ -14,8 +14,8 @@ objects whose degrees add up to ``d`` and whose types at each leg ``j`` add up
 
 Examples
 --------
->>> from covertree.graphs.dual_graph import StableGraph
->>> g = StableGraph([0, 0], [(0, 1), (0, 1)], [[1], [2]])
+>>> from covertree.graphs.curve_graph import StableCurveGraph
+>>> g = StableCurveGraph([(0, [1]), (0, [2])], nodes=[(0, 1), (0, 1)])
 >>> special_points(g)
 [[('leg', 1), ('half', 0, 0), ('half', 1, 0)], [('leg', 2), ('half', 0, 1), ('half', 1, 1)]]
 >>> covers = local_covers(2, 0, [(2,), None, None])
@@ -30,16 +30,16 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 from functools import cached_property
 
-from covertree.graphs.dual_graph import DualGraph
+from covertree.graphs.curve_graph import CurveGraph
 from covertree.monodromy.pieces import Piece, connected_pieces
 
 SpecialPoint = tuple
 
 
-def special_points(graph: DualGraph) -> list[list[SpecialPoint]]:
+def special_points(graph: CurveGraph) -> list[list[SpecialPoint]]:
     """The ordered special points of every vertex (see the module convention)."""
-    out: list[list[SpecialPoint]] = [[("leg", j) for j in legs] for legs in graph.legs]
-    for k, (i, j) in enumerate(graph.edges):
+    out: list[list[SpecialPoint]] = [[("leg", j) for j in legs] for legs in graph.vertex_legs]
+    for k, (i, j) in enumerate(graph.nodes):
         out[i].append(("half", k, 0))
         out[j].append(("half", k, 1))
     return out

@@ -58,7 +58,7 @@ from types import MappingProxyType
 from covertree.catalogue.catalogue import DEFAULT_MAX_COVERS, StratumResult, iter_stratum, problem_hurwitz, select_strata
 from covertree.catalogue.pullback import boundary_divisors, pullback_row
 from covertree.errors import GraphError, InputError
-from covertree.graphs.dual_graph import StableGraph
+from covertree.graphs.curve_graph import StableCurveGraph
 from covertree.graphs.notation import parse_graph
 from covertree.hurwitz.numbers import hurwitz_numbers
 from covertree.hurwitz.problem import HurwitzProblem
@@ -118,10 +118,10 @@ class Quantity:
         if self.source is not None:
             parse_graph(self.source)
 
-    def base_graph(self) -> StableGraph:
+    def base_graph(self) -> StableCurveGraph:
         """The base stratum as a graph (``stratum`` parsed)."""
         graph = parse_graph(self.stratum)
-        if not isinstance(graph, StableGraph):
+        if not isinstance(graph, StableCurveGraph):
             raise GraphError(f"stratum {self.stratum!r} is not a stable graph")
         return graph
 

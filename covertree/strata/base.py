@@ -36,7 +36,7 @@ from dataclasses import dataclass
 
 from covertree.errors import GraphError, ProfileError
 from covertree.graphs.canonical import _certify
-from covertree.graphs.dual_graph import StableGraph
+from covertree.graphs.curve_graph import StableCurveGraph
 from covertree.graphs.enumerate import stable_graphs
 from covertree.symmetric.partitions import Partition
 
@@ -54,7 +54,7 @@ class BaseStratum:
     ('g0{1} | 0-0', 1, 1)
     """
 
-    graph: StableGraph
+    graph: StableCurveGraph
     orbit_size: int
 
     @property
@@ -127,7 +127,7 @@ def _profile_classes(profiles: Sequence[Sequence[int]], fixed: Collection[int] =
     return [distinct.index(k) for k in keys]
 
 
-def stratum_orbit(graph: StableGraph, profiles: Sequence[Sequence[int]], fixed: Collection[int] = ()) -> BaseStratum:
+def stratum_orbit(graph: StableCurveGraph, profiles: Sequence[Sequence[int]], fixed: Collection[int] = ()) -> BaseStratum:
     """The given labelled stratum with the size of its orbit under permutations
     of equal-profile legs (other than the ``fixed`` ones).
 
@@ -143,7 +143,7 @@ def stratum_orbit(graph: StableGraph, profiles: Sequence[Sequence[int]], fixed: 
     2
     """
     b = len(profiles)
-    labels = sorted(j for legs in graph.legs for j in legs)
+    labels = sorted(j for legs in graph.vertex_legs for j in legs)
     if labels != list(range(1, b + 1)):
         shown = ",".join(map(str, labels)) or "none"
         raise GraphError(
@@ -156,7 +156,7 @@ def stratum_orbit(graph: StableGraph, profiles: Sequence[Sequence[int]], fixed: 
     return BaseStratum(graph, sum(1 for g in same if _colour_key(g, classes) == target))
 
 
-def _colour_key(g: StableGraph, classes: list[int]) -> tuple:
+def _colour_key(g: StableCurveGraph, classes: list[int]) -> tuple:
     """Canonical key of ``g`` with each leg replaced by its profile class."""
-    coloured = tuple(tuple(classes[j - 1] for j in legs) for legs in g.legs)
-    return _certify(g.genera, g.edges, coloured)[0]
+    coloured = tuple(tuple(classes[j - 1] for j in legs) for legs in g.vertex_legs)
+    return _certify(g.vertex_genera, g.nodes, coloured)[0]

@@ -121,7 +121,7 @@ from covertree.catalogue.catalogue import problem_hurwitz, select_strata, weight
 from covertree.catalogue.covers import legs_per_vertex, make_graph
 from covertree.errors import GraphError, IdentityError
 from covertree.graphs.canonical import _certify
-from covertree.graphs.dual_graph import DualGraph, StableGraph
+from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.monodromy.local import special_points
 from covertree.stabilisation.stabilise import Stabilised, stabilise
@@ -162,12 +162,12 @@ class TallyEntry:
     legs: tuple[int, ...] = ()
 
     @property
-    def source(self) -> DualGraph:
+    def source(self) -> CurveGraph:
         """The source dual graph (often unstable)."""
         return _graphs(self.genera, _plain(self.edges), self.legs)[0]
 
     @property
-    def stable_source(self) -> DualGraph:
+    def stable_source(self) -> CurveGraph:
         """The stabilised source."""
         return _graphs(self.genera, _plain(self.edges), self.legs)[1]
 
@@ -214,7 +214,7 @@ class TypeTally:
         """The degeneration identity: total weight == Hurwitz number."""
         return self.total_weight == self.hurwitz_number
 
-    def by_source(self) -> list[tuple[DualGraph, Fraction]]:
+    def by_source(self) -> list[tuple[CurveGraph, Fraction]]:
         """Summed weight per stable source stratum, sorted canonically (as
         :meth:`covertree.catalogue.catalogue.StratumResult.by_source`)."""
         return weight_by_graph((e.stable_source, e.weight) for e in self.entries)
@@ -226,7 +226,7 @@ class TypeTally:
             tally[e.edge_profiles] = tally.get(e.edge_profiles, Fraction(0)) + e.weight
         return sorted(tally.items())
 
-    def by_class(self) -> list[tuple[tuple[Profile, ...], DualGraph, DualGraph, Fraction]]:
+    def by_class(self) -> list[tuple[tuple[Profile, ...], CurveGraph, CurveGraph, Fraction]]:
         """Summed weight per ``(node profiles, source, stable source)``, sorted."""
         tally: dict[tuple, Fraction] = {}
         for e in self.entries:
@@ -287,12 +287,12 @@ class _Vertex:
     halves: tuple[tuple, ...]  # per half point of the vertex: ("half", k, side)
 
 
-def _vertex_data(base: StableGraph, degree: int, genus: int, profiles: Sequence[Profile]) -> list[_Vertex]:
+def _vertex_data(base: StableCurveGraph, degree: int, genus: int, profiles: Sequence[Profile]) -> list[_Vertex]:
     out = []
     for v, spec in enumerate(special_points(base)):
         legs = tuple(tuple(profiles[s[1] - 1]) for s in spec if s[0] == "leg")
         halves = tuple(s for s in spec if s[0] == "half")
-        key = (degree, base.genera[v], legs, len(halves), genus)
+        key = (degree, base.vertex_genera[v], legs, len(halves), genus)
         out.append(_Vertex(piece_shapes(*key), tuple(local_multisets(*key)), halves))
     return out
 
@@ -304,7 +304,7 @@ def _union_profiles(shapes: Sequence[Shape], multiset: Sequence[int], n_halves: 
     )
 
 
-def _choices(base: StableGraph, data: list[_Vertex], genus: int) -> Iterator[tuple[tuple[int, ...], ...]]:
+def _choices(base: StableCurveGraph, data: list[_Vertex], genus: int) -> Iterator[tuple[tuple[int, ...], ...]]:
     """Balanced choices of one local multiset per vertex, genera adding up to
     at most ``genus``."""
     where = {}
@@ -312,7 +312,7 @@ def _choices(base: StableGraph, data: list[_Vertex], genus: int) -> Iterator[tup
         for p, (_, k, side) in enumerate(vd.halves):
             where[(k, side)] = (v, p)
     checks: list[list[tuple]] = [[] for _ in data]
-    for k, (i, j) in enumerate(base.edges):
+    for k, (i, j) in enumerate(base.nodes):
         checks[max(i, j)].append((where[(k, 0)], where[(k, 1)]))
     options = []
     for vd in data:
@@ -335,9 +335,9 @@ def _choices(base: StableGraph, data: list[_Vertex], genus: int) -> Iterator[tup
     yield from rec(0, genus)
 
 
-def _edge_profiles(base: StableGraph, data: list[_Vertex], choice) -> tuple[Profile, ...]:
+def _edge_profiles(base: StableCurveGraph, data: list[_Vertex], choice) -> tuple[Profile, ...]:
     out = []
-    for k, (i, _) in enumerate(base.edges):
+    for k, (i, _) in enumerate(base.nodes):
         p = data[i].halves.index(("half", k, 0))
         out.append(tuple(sorted((x for s in choice[i] for x in data[i].shapes[s].halves[p]), reverse=True)))
     return tuple(out)
@@ -354,13 +354,13 @@ def _class_ids(choice) -> list[int]:
     return out
 
 
-def _mark_assignments(base: StableGraph, vertex: Sequence[int], shapes: Sequence[Shape],
+def _mark_assignments(base: StableCurveGraph, vertex: Sequence[int], shapes: Sequence[Shape],
                       marks: Sequence[tuple[int, int]]) -> list[tuple[tuple[int, ...], int]]:
     """Every way to put the legs ``(J, e)`` on pieces, with the number of
     labellings of the marked points that does it: per piece and ``(J, e)``,
     ``m! / (m - c)!`` for ``m`` points of index ``e`` over ``J`` in the piece
     and ``c`` legs put there."""
-    position = {j: (v, legs.index(j)) for v, legs in enumerate(base.legs) for j in legs}
+    position = {j: (v, legs.index(j)) for v, legs in enumerate(base.vertex_legs) for j in legs}
     options = []
     for point, index in marks:
         v, p = position[point]
@@ -376,7 +376,7 @@ def _mark_assignments(base: StableGraph, vertex: Sequence[int], shapes: Sequence
     return out
 
 
-def _choice_entries(base: StableGraph, data: list[_Vertex], choice, genus: int,
+def _choice_entries(base: StableCurveGraph, data: list[_Vertex], choice, genus: int,
                     marks: Sequence[tuple[int, int]] = ()) -> list[TallyEntry]:
     vertex = [v for v, m in enumerate(choice) for _ in m]
     shapes = [data[v].shapes[s] for v, m in enumerate(choice) for s in m]
@@ -389,7 +389,7 @@ def _choice_entries(base: StableGraph, data: list[_Vertex], choice, genus: int,
     mult = prod(x for p in profiles for x in p)
     sizes = [classes.count(c) for c in range(classes[-1] + 1)]
     coeff = Fraction(mult) * prod(s.hurwitz for s in shapes) / prod(factorial(n) for n in sizes)
-    counts = count_matchings(base.edges, vertex, [s.halves for s in shapes], classes)
+    counts = count_matchings(base.nodes, vertex, [s.halves for s in shapes], classes)
     if not marks:
         return [TallyEntry(profiles, genera, key, coeff * n) for key, n in sorted(counts.items())]
     assignments = _mark_assignments(base, vertex, shapes, marks)
@@ -397,9 +397,9 @@ def _choice_entries(base: StableGraph, data: list[_Vertex], choice, genus: int,
             for key, n in sorted(counts.items()) for carriers, ways in assignments]
 
 
-def _check_base(problem: HurwitzProblem, graph: StableGraph) -> None:
+def _check_base(problem: HurwitzProblem, graph: StableCurveGraph) -> None:
     """The base must be a stratum of ``Mbar_{h,b}`` with legs ``1..b``."""
-    legs = sorted(j for x in graph.legs for j in x)
+    legs = sorted(j for x in graph.vertex_legs for j in x)
     if graph.genus != problem.target_genus or legs != list(range(1, problem.points + 1)):
         raise GraphError(
             f"stratum {graph.notation!r} is not a stratum of Mbar_{{{problem.target_genus},{problem.points}}} "
@@ -511,7 +511,7 @@ def iter_types(problem: HurwitzProblem, base: BaseStratum) -> Iterator[CoverType
         labelled = prod(s.hurwitz * prod(_aut(p) for p in s.halves) for s in shapes)
         mult = prod(x for p in edge_profiles for x in p)
         seen: set[tuple] = set()
-        for key in sorted(count_matchings(base.graph.edges, vertex, [s.halves for s in shapes], classes)):
+        for key in sorted(count_matchings(base.graph.nodes, vertex, [s.halves for s in shapes], classes)):
             code, aut_v, relabel = _type_code(classes, key)
             if code not in seen:
                 seen.add(code)
@@ -523,7 +523,7 @@ def _aut(profile: Profile) -> int:
     return prod(factorial(profile.count(x)) for x in set(profile))
 
 
-def tally_catalogue(problem: HurwitzProblem, max_codim: int = 1, stratum: StableGraph | None = None,
+def tally_catalogue(problem: HurwitzProblem, max_codim: int = 1, stratum: StableCurveGraph | None = None,
                     labeled: bool = False) -> TallyCatalogue:
     """Tallies over every selected base stratum (as
     :func:`covertree.catalogue.catalogue.build_catalogue` selects them)."""

@@ -13,7 +13,7 @@ import pytest
 from covertree.catalogue.catalogue import build_catalogue, select_strata
 from covertree.catalogue.covers import Cover, divisor_name
 from covertree.errors import GraphError, LimitError
-from covertree.graphs.dual_graph import StableGraph
+from covertree.graphs.curve_graph import StableCurveGraph
 from covertree.graphs.notation import parse_graph
 from covertree.hurwitz.numbers import connected_hurwitz
 from covertree.hurwitz.problem import HurwitzProblem
@@ -65,7 +65,7 @@ def test_degeneration_identity_on_every_stratum(args):
         for c in s.covers:
             assert c.weight == Fraction(c.multiplicity, c.automorphisms) > 0
             assert c.source.genus == problem.genus == c.stable_source.genus
-            assert len(c.edge_profiles) == s.base.graph.n_edges
+            assert len(c.edge_profiles) == s.base.graph.n_nodes
             assert all(sum(p) == d for p in c.edge_profiles)
             assert c.multiplicity == _product(x for p in c.edge_profiles for x in p)
 
@@ -172,12 +172,12 @@ def test_covers_sorted_deterministically():
 
 
 def test_divisor_names():
-    assert divisor_name(StableGraph([1], [(0, 0)])) == "delta_0"
-    assert divisor_name(StableGraph([1, 2], [(0, 1)])) == "delta_1"
-    assert divisor_name(StableGraph([1, 1], [(0, 1)])) == "delta_1"
-    assert divisor_name(StableGraph([3], [])) is None
-    assert divisor_name(StableGraph([0], [(0, 0), (0, 0)])) is None  # codim 2
-    assert divisor_name(StableGraph([0, 1], [(0, 0), (0, 1)])) is None
+    assert divisor_name(StableCurveGraph([1], nodes=[(0, 0)])) == "delta_0"
+    assert divisor_name(StableCurveGraph([1, 2], nodes=[(0, 1)])) == "delta_1"
+    assert divisor_name(StableCurveGraph([1, 1], nodes=[(0, 1)])) == "delta_1"
+    assert divisor_name(StableCurveGraph([3])) is None
+    assert divisor_name(StableCurveGraph([0], nodes=[(0, 0), (0, 0)])) is None  # codim 2
+    assert divisor_name(StableCurveGraph([0, 1], nodes=[(0, 0), (0, 1)])) is None
 
 
 def test_catalogue_of_genus_two_double_covers_lands_in_two_divisors():

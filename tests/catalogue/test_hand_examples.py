@@ -95,7 +95,7 @@ def test_rational_bubble_on_nodal_rational_base():
     #     each |Aut| = 2, mult = 1.
     # total 1 + 1/2 + 1/2 = 2
     base = parse_graph("g0{1,2}, g0 | 0-1, 1-1")
-    loop = next(k for k, (a, b) in enumerate(base.edges) if a == b)
+    loop = next(k for k, (a, b) in enumerate(base.nodes) if a == b)
 
     def profiles(at_loop, at_bridge):
         out = [None, None]

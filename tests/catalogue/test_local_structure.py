@@ -71,8 +71,8 @@ def test_structure_of_every_cover_matches_its_data():
                 if base.codim != 1:
                     assert s.stable_nodes is None
                     continue
-                assert len(s.stable_nodes) == c.stable_source.n_edges
-                assert [n.ends for n in s.stable_nodes] == [tuple(e) for e in c.stable_source.edges]
+                assert len(s.stable_nodes) == c.stable_source.n_nodes
+                assert [n.ends for n in s.stable_nodes] == [tuple(e) for e in c.stable_source.nodes]
                 big_l = s.nodes[0].lcm
                 chains = sorted(n.chain for n in s.stable_nodes)
                 assert chains == sorted(c.stabilised.chains)

@@ -47,7 +47,7 @@ def _problem(d, h, g, profiles, marks):
 
 
 def _forget(graph):
-    return make_graph(graph.genera, graph.edges)
+    return make_graph(graph.vertex_genera, graph.nodes)
 
 
 @pytest.mark.parametrize("spec", PROBLEMS, ids=lambda s: f"{s}")

@@ -21,7 +21,7 @@ from collections import Counter
 import pytest
 
 from covertree.catalogue.covers import stratum_covers
-from covertree.graphs.dual_graph import DualGraph
+from covertree.graphs.curve_graph import CurveGraph
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.strata.base import base_strata
 from tests.oracle.brute_covers import BruteCover, brute_force_covers
@@ -69,7 +69,7 @@ def engine_shape(cover) -> tuple:
     return wrapped.key()
 
 
-def tiny_stabilise(genera, edges) -> DualGraph:
+def tiny_stabilise(genera, edges) -> CurveGraph:
     """Contract rational tails and rational bridges (THEORY.md section 3), written
     independently of covertree.stabilisation: vertices are dict keys, edges a list
     of pairs; at each step drop a genus-0 vertex meeting one edge end, or merge
@@ -99,16 +99,16 @@ def tiny_stabilise(genera, edges) -> DualGraph:
                 changed = True
                 break
     names = {v: i for i, v in enumerate(sorted(genus))}
-    return DualGraph([genus[v] for v in sorted(genus)], [(names[a], names[b]) for a, b in edge_list])
+    return CurveGraph._from_parts([genus[v] for v in sorted(genus)], [(names[a], names[b]) for a, b in edge_list])
 
 
 def test_tiny_stabiliser_by_hand():
     # an elliptic curve with a rational bridge between two of its points, and a
     # rational tail on the bridge: the tail goes, the bridge becomes a loop
     g = tiny_stabilise([1, 0, 0], [(0, 1), (0, 1), (1, 2)])
-    assert g == DualGraph([1], [(0, 0)])
+    assert g == CurveGraph([1], nodes=[(0, 0)])
     # a chain of three rational curves ends as one rational vertex
-    assert tiny_stabilise([0, 0, 0], [(0, 1), (1, 2)]) == DualGraph([0], [])
+    assert tiny_stabilise([0, 0, 0], [(0, 1), (1, 2)]) == CurveGraph([0])
 
 
 @pytest.mark.parametrize("args", PROBLEMS, ids=_ident)
@@ -121,7 +121,7 @@ def test_engine_matches_oracle_cover_by_cover(args):
     for stratum in strata:
         base = stratum.graph
         engine = list(stratum_covers(base, d, profiles))
-        oracle = brute_force_covers(d, base.genera, base.edges, base.legs, profiles)
+        oracle = brute_force_covers(d, base.vertex_genera, base.nodes, base.vertex_legs, profiles)
         assert len(engine) == len(oracle), base.notation
         assert Counter(engine_shape(c) for c in engine) == Counter(c.key() for c in oracle), base.notation
         engine_stable = Counter((engine_shape(c), c.stable_source) for c in engine)
@@ -131,5 +131,5 @@ def test_engine_matches_oracle_cover_by_cover(args):
         assert engine_stable == oracle_stable, base.notation
         # the engine's source graph is the oracle-shaped one
         for c in engine:
-            assert c.source == DualGraph(c.raw.source_genera, c.raw.source_edges)
+            assert c.source == CurveGraph._from_parts(c.raw.source_genera, c.raw.source_edges)
             assert c.source.genus == problem.genus

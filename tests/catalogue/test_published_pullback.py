@@ -23,7 +23,7 @@ from covertree.hurwitz.problem import HurwitzProblem
 
 
 def _split(graph):
-    return min(len(legs) for legs in graph.legs)
+    return min(len(legs) for legs in graph.vertex_legs)
 
 
 @pytest.mark.parametrize("genus", [2, 3, 4])

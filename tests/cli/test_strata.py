@@ -8,7 +8,7 @@ import pytest
 from click.testing import CliRunner
 
 from covertree.cli import main
-from covertree.graphs import StableGraph
+from covertree.graphs import StableCurveGraph
 
 
 def run(*args):
@@ -22,11 +22,11 @@ def test_json_lists_the_strata_of_mbar_3():
     data = json.loads(result.stdout)
     assert (data["target_genus"], data["points"]) == (3, 0)
     assert len(data["strata"]) == 42
-    graphs = [StableGraph.from_dict(d) for d in data["strata"]]
+    graphs = [StableCurveGraph.from_dict(d) for d in data["strata"]]
     assert len(set(graphs)) == 42
     codims = [d["codim"] for d in data["strata"]]
     assert codims == sorted(codims) and max(codims) == 6
-    assert all(StableGraph.from_dict(d).automorphisms == d["automorphisms"] for d in data["strata"])
+    assert all(StableCurveGraph.from_dict(d).automorphisms == d["automorphisms"] for d in data["strata"])
 
 
 def test_short_options_and_codim_limit():

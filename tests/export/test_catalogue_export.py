@@ -17,7 +17,7 @@ from covertree.catalogue.catalogue import build_catalogue
 from covertree.export.catalogue import (
     COVER_COLUMNS, catalogue_to_csv, catalogue_to_dict, catalogue_to_json, catalogue_to_latex, cover_to_jsonl,
 )
-from covertree.graphs.dual_graph import DualGraph
+from covertree.graphs.curve_graph import CurveGraph
 from covertree.hurwitz.problem import HurwitzProblem
 
 RATIONAL = re.compile(r"^-?\d+(/\d+)?$")
@@ -36,7 +36,7 @@ def _graph(g):
     assert isinstance(g["automorphisms"], int) and g["codim"] == len(g["edges"])
     for v in g["vertices"]:
         assert isinstance(v["genus"], int) and all(isinstance(x, int) for x in v["legs"])
-    assert DualGraph.from_dict(g).notation == g["notation"]
+    assert CurveGraph.from_dict(g).notation == g["notation"]
 
 
 def _rational(text):

@@ -32,17 +32,17 @@ def test_every_vertex_edge_and_leg_is_drawn():
         assert len(pictures) == len(graphs)
         for g, pic in zip(graphs, pictures):
             assert pic.count(r"\node[vertex]") == g.n_vertices
-            assert pic.count(r"\draw (v") == g.n_edges + g.n_legs
+            assert pic.count(r"\draw (v") == g.n_nodes + g.n_legs
             assert pic.count(r"\node[llabel]") == g.n_legs
-            assert pic.count("looseness") == sum(a == b for a, b in g.edges)
+            assert pic.count("looseness") == sum(a == b for a, b in g.nodes)
 
 
 def test_parallel_edges_and_loops_are_distinct():
     from covertree.graphs.notation import parse_graph
 
     g = parse_graph("g0, g0 | 0-0, 0-1^3, 1-1")
-    lay = layout(g.n_vertices, g.edges, g.legs)
-    bends = [lay.bends[k] for k, (a, b) in enumerate(g.edges) if a != b]
+    lay = layout(g.n_vertices, g.nodes, g.vertex_legs)
+    bends = [lay.bends[k] for k, (a, b) in enumerate(g.nodes) if a != b]
     assert len(set(bends)) == 3
     loops = [x for x in lay.loop_angles if x is not None]
     assert len(loops) == 2

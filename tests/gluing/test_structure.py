@@ -143,7 +143,7 @@ def test_hand_built_structure():
     glued = Glued([0, 1], [a, b], [[1, 2], [1, 2]], {})
     pairs = [((0, 1, 0), (1, 1, 0)), ((0, 2, 0), (1, 2, 0)), ((0, 2, 1), (1, 2, 1))]
     glued.partner = {x: y for p, q in pairs for x, y in ((p, q), (q, p))}
-    assert base.n_edges == 2
+    assert base.n_nodes == 2
     code, aut = canonical_code(glued)
     assert aut == 2
     crossed = Glued([0, 1], [a, b], [[1, 2], [1, 2]], {})

@@ -8,7 +8,7 @@ from math import factorial
 import pytest
 
 from covertree.errors import GraphError
-from covertree.graphs import StableGraph, stable_graphs
+from covertree.graphs import StableCurveGraph, stable_graphs
 
 
 def _connected(n, edges):
@@ -77,9 +77,9 @@ def test_list_is_sorted_distinct_stable_and_of_the_type(genus, n):
     assert [(g.codim, g.key) for g in graphs] == sorted((g.codim, g.key) for g in graphs)
     assert len(set(graphs)) == len(graphs)
     for g in graphs:
-        assert isinstance(g, StableGraph) and g.is_stable()
+        assert isinstance(g, StableCurveGraph) and g.is_stable()
         assert g.genus == genus
-        assert sorted(j for legs in g.legs for j in legs) == list(range(1, n + 1))
+        assert sorted(j for legs in g.vertex_legs for j in legs) == list(range(1, n + 1))
 
 
 def test_max_codim_truncates_and_caps():

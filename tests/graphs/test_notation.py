@@ -3,7 +3,7 @@
 import pytest
 
 from covertree.errors import NotationError
-from covertree.graphs import DualGraph, StableGraph, format_graph, parse_graph, stable_graphs
+from covertree.graphs import CurveGraph, StableCurveGraph, format_graph, parse_graph, stable_graphs
 
 
 @pytest.mark.parametrize("genus, n", [(0, 6), (1, 3), (2, 2), (3, 0), (3, 1), (4, 0)])
@@ -11,24 +11,24 @@ def test_round_trip_on_every_stratum(genus, n):
     for g in stable_graphs(genus, n):
         text = format_graph(g)
         back = parse_graph(text)
-        assert back == g and isinstance(back, StableGraph)
-        assert (back.genera, back.edges, back.legs) == (g.genera, g.edges, g.legs)
+        assert back == g and isinstance(back, StableCurveGraph)
+        assert (back.vertex_genera, back.nodes, back.vertex_legs) == (g.vertex_genera, g.nodes, g.vertex_legs)
         assert format_graph(back) == text
 
 
 def test_round_trip_of_unstable_graphs():
     # sources of covers: rational tails and bridges, long chains
-    chain = DualGraph([0] * 6, [(i, i + 1) for i in range(5)], [[1], [], [], [], [], [2]])
-    tail = DualGraph([1, 0, 0], [(0, 1), (1, 2), (2, 2)], [[], [], []])
+    chain = CurveGraph._from_parts([0] * 6, [(i, i + 1) for i in range(5)], [[1], [], [], [], [], [2]])
+    tail = CurveGraph([1, 0, 0], nodes=[(0, 1), (1, 2), (2, 2)])
     for g in (chain, tail):
         back = parse_graph(g.notation)
-        assert back == g and type(back) is DualGraph and not back.is_stable()
+        assert back == g and type(back) is CurveGraph and not back.is_stable()
 
 
 def test_multiplicity_shorthand_and_loops():
     g = parse_graph("g0, g0, g1{4} | 0-1^3, 1-2, 2-2^2, 0-0")
-    assert g.n_edges == 7
-    assert sum(1 for a, b in g.edges if a == b) == 3
+    assert g.n_nodes == 7
+    assert sum(1 for a, b in g.nodes if a == b) == 3
     assert str(g).count("^") == 2
     # 3! on the triple edge, 2 for the single loop, 2! * 2^2 for the double loop
     assert g.automorphisms == 6 * 2 * 8
@@ -48,7 +48,7 @@ def test_input_order_does_not_matter():
 
 
 def test_empty_leg_braces_and_bare_bar():
-    assert parse_graph("g2{}") == parse_graph("g2 |") == StableGraph([2], [])
+    assert parse_graph("g2{}") == parse_graph("g2 |") == StableCurveGraph([2])
 
 
 @pytest.mark.parametrize(

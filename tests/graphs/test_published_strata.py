@@ -56,7 +56,7 @@ def test_unmarked_top_codimension_strata_are_trivalent(genus, expected):
     # 2, 5, 17, 71 trivalent (maximal) genus-g graphs for g = 2, 3, 4, 5.
     top = [g for g in stable_graphs(genus, 0) if g.codim == 3 * genus - 3]
     assert len(top) == expected
-    assert all(set(g.genera) == {0} for g in top)
+    assert all(set(g.vertex_genera) == {0} for g in top)
     assert all(g.valence(v) == 3 for g in top for v in range(g.n_vertices))
 
 

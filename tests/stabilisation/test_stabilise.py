@@ -7,7 +7,7 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from covertree.catalogue.catalogue import build_catalogue
-from covertree.graphs.dual_graph import DualGraph, StableGraph
+from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 from covertree.graphs.enumerate import stable_graphs
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.stabilisation.stabilise import stabilise
@@ -133,8 +133,8 @@ def connected_graphs(draw):
 def test_stabilise_properties(graph):
     genera, edges = graph
     s = stabilise(genera, edges)
-    before = DualGraph(genera, edges)
-    after = DualGraph(s.genera, s.edges)
+    before = CurveGraph._from_parts(genera, edges)
+    after = CurveGraph._from_parts(s.genera, s.edges)
     assert after.genus == before.genus
     assert after == tiny_stabilise(genera, edges)
     if before.genus >= 2:
@@ -158,7 +158,7 @@ def test_stable_sources_are_strata_of_mbar_g():
         assert genus >= 2
         strata = set(stable_graphs(genus, 0))
         for g in sources:
-            assert isinstance(g, StableGraph), g.notation
+            assert isinstance(g, StableCurveGraph), g.notation
             assert g.genus == genus and g.n_legs == 0
             assert g in strata, g.notation
 

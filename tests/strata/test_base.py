@@ -62,7 +62,7 @@ def test_six_simple_points_on_the_line():
     # splits 2|4 (C(6,2) = 15 of them) and 3|3 (C(6,3)/2 = 10).
     divisors = [s for s in base_strata(0, [(2, 1, 1)] * 6, 1) if s.codim == 1]
     sizes = sorted(
-        (sorted(len(legs) for legs in s.graph.legs), s.orbit_size) for s in divisors
+        (sorted(len(legs) for legs in s.graph.vertex_legs), s.orbit_size) for s in divisors
     )
     assert sizes == [([2, 4], 15), ([3, 3], 10)]
 

@@ -2,14 +2,16 @@
 
 Conventions (THEORY section 2): vertices are 0-based, legs are labelled by
 positive integers (``1..n`` for a stratum of ``Mbar_{g,n}``), loops and
-parallel edges are allowed.  The arithmetic genus is ``sum g_v + E - V + 1``;
+parallel nodes are allowed.  The arithmetic genus is ``sum g_v + E - V + 1``;
 a vertex is stable when ``2 g_v - 2 + n_v > 0``, ``n_v`` its valence (legs plus
 half-edges, a loop counting twice).  Automorphisms are counted on half-edges:
-loop flips and permutations of parallel edges count.
+loop flips and permutations of parallel nodes count.
 
-A :class:`DualGraph` is normalised to canonical form by its constructor, so
-``==`` and ``hash`` compare isomorphism classes (fixing every leg label) and
-the stored vertex and edge order is canonical.
+A :class:`CurveGraph` is built from vertex records (genus and legs of each
+component) and a list of nodes (pairs of vertices), or from the one-line
+notation with :meth:`CurveGraph.parse`.  The constructor normalises to
+canonical form, so ``==`` and ``hash`` compare isomorphism classes (fixing
+every leg label) and the stored vertex and node order is canonical.
 
 References
 ----------
@@ -18,67 +20,108 @@ E. Arbarello, M. Cornalba, P. Griffiths, *Geometry of Algebraic Curves II*
 
 Examples
 --------
->>> g = DualGraph([0, 1], [(1, 0)], [[], [2, 1]])
->>> g.genera, g.legs, g.edges
-((0, 1), ((), (1, 2)), ((0, 1),))
->>> g.genus, g.codim, g.is_stable()
-(1, 1, False)
->>> StableGraph([1], [(0, 0)]).automorphisms
+>>> g = CurveGraph([Vertex(0), Vertex(1, (2, 1))], nodes=[(1, 0)])
+>>> g.vertices
+(Vertex(genus=0, legs=()), Vertex(genus=1, legs=(1, 2)))
+>>> g.nodes, g.genus, g.codim, g.is_stable()
+(((0, 1),), 1, 1, False)
+>>> StableCurveGraph([(1, ())], nodes=[(0, 0)]).automorphisms
 2
->>> StableGraph([0, 0], [(0, 1)], [[1, 2], [3, 4]]).notation
+>>> StableCurveGraph.parse("g0{3,4}, g0{1,2} | 1-0").notation
 'g0{1,2}, g0{3,4} | 0-1'
 """
 
 from __future__ import annotations
 
 from collections.abc import Mapping, Sequence
+from typing import NamedTuple
 
 from covertree.errors import GraphError
 from covertree.graphs.canonical import _certify, _check_shape, edge_symmetry_factor
 
-__all__ = ["DualGraph", "StableGraph"]
+__all__ = ["CurveGraph", "StableCurveGraph", "Vertex"]
 
 
-class DualGraph:
+class Vertex(NamedTuple):
+    """One component of a nodal curve: its genus and the legs (marked points) on it.
+
+    Examples
+    --------
+    >>> Vertex(2), Vertex(0, (1, 2))
+    (Vertex(genus=2, legs=()), Vertex(genus=0, legs=(1, 2)))
+    """
+
+    genus: int
+    legs: tuple[int, ...] = ()
+
+
+class CurveGraph:
     """Connected dual graph of a nodal curve, up to isomorphism fixing legs.
 
     Parameters
     ----------
-    genera : sequence of int
-        Genus ``>= 0`` of each vertex (0-based).
-    edges : sequence of (int, int)
-        Edges as vertex pairs; ``(i, i)`` is a loop, repeated pairs are
-        parallel edges.
-    legs : sequence of sequences of int, optional
-        Leg labels (positive integers, each used once) at each vertex;
-        default no legs.
+    vertices : sequence of Vertex, (genus, legs) pairs or int
+        One record per component (0-based in the order given): its genus
+        ``>= 0`` and its leg labels (positive integers, each used once); a
+        bare integer is a genus with no legs.
+    nodes : sequence of (int, int), optional
+        Nodes as pairs of vertices; ``(i, i)`` is a loop, repeated pairs are
+        parallel nodes.  Default: none (a smooth curve).
 
     Raises
     ------
     GraphError
-        If the graph is empty or disconnected, a genus is negative, an edge
-        endpoint is not a vertex or a leg label is repeated or not positive.
+        If the graph is empty or disconnected, a record is malformed, a genus
+        is negative, a node endpoint is not a vertex or a leg label is
+        repeated or not positive.
 
     Examples
     --------
-    >>> a = DualGraph([0, 0, 0], [(0, 1), (1, 2)], [[1], [], [2]])
-    >>> b = DualGraph([0, 0, 0], [(2, 1), (1, 0)], [[], [1], [2]])
+    >>> a = CurveGraph([(0, [1]), 0, (0, [2])], nodes=[(0, 1), (1, 2)])
+    >>> b = CurveGraph([0, (0, [1]), (0, [2])], nodes=[(2, 1), (1, 0)])
     >>> a == b
     False
-    >>> a == DualGraph([0, 0, 0], [(2, 1), (1, 0)], [[2], [], [1]])
+    >>> a == CurveGraph([(0, [2]), 0, (0, [1])], nodes=[(2, 1), (1, 0)])
     True
-    >>> a.valence(2), a.n_vertices, a.n_legs
-    (2, 3, 2)
+    >>> a.valence(2), a.n_vertices, a.n_legs, a.genus_at(1), a.legs_at(2)
+    (2, 3, 2, 0, (2,))
     """
 
     __slots__ = ("_genera", "_edges", "_legs", "_key", "_aut_v")
 
-    def __init__(
-        self,
-        genera: Sequence[int],
-        edges: Sequence[tuple[int, int]],
-        legs: Sequence[Sequence[int]] | None = None,
-    ) -> None:
+    def __init__(self, vertices: Sequence, nodes: Sequence[tuple[int, int]] = ()) -> None:
+        genera, legs = _records(vertices)
+        self._build(genera, nodes, legs)
+
+    @classmethod
+    def _from_parts(cls, genera: Sequence[int], edges: Sequence[tuple[int, int]],
+                    legs: Sequence[Sequence[int]] | None = None) -> "CurveGraph":
+        """Internal constructor from plain tuples (genera, nodes, legs per vertex)."""
+        graph = cls.__new__(cls)
+        graph._build(genera, edges, legs)
+        return graph
+
+    @classmethod
+    def parse(cls, text: str) -> "CurveGraph":
+        """The graph written in covertree's one-line notation.
+
+        See :mod:`covertree.graphs.notation`; a :class:`StableCurveGraph` is
+        returned when the graph is stable (``StableCurveGraph.parse`` refuses
+        unstable ones).
+
+        Examples
+        --------
+        >>> CurveGraph.parse("g0{1} | 0-0"), CurveGraph.parse("g0 | 0-0")
+        (<StableCurveGraph g0{1} | 0-0>, <CurveGraph g0 | 0-0>)
+        """
+        from covertree.graphs.notation import parse_graph
+
+        graph = parse_graph(text)
+        if not isinstance(graph, cls):
+            return cls._from_parts(graph._genera, graph._edges, graph._legs)
+        return graph
+
+    def _build(self, genera, edges, legs) -> None:
         genera, edges, legs = _validated(genera, edges, legs)
         self._check_extra(genera, edges, legs)
         key, order, aut_v = _certify(genera, edges, legs)
@@ -88,7 +131,7 @@ class DualGraph:
         """Hook for subclasses: further conditions on the validated input."""
 
     def _set(self, genera, edges, legs, key, aut_v) -> None:
-        for name, value in zip(DualGraph.__slots__, (genera, edges, legs, key, aut_v)):
+        for name, value in zip(CurveGraph.__slots__, (genera, edges, legs, key, aut_v)):
             object.__setattr__(self, name, value)
 
     @classmethod
@@ -103,19 +146,32 @@ class DualGraph:
 
     # -- data ----------------------------------------------------------------
     @property
-    def genera(self) -> tuple[int, ...]:
+    def vertices(self) -> tuple[Vertex, ...]:
+        """One :class:`Vertex` record per component, in canonical vertex order."""
+        return tuple(Vertex(g, x) for g, x in zip(self._genera, self._legs))
+
+    @property
+    def nodes(self) -> tuple[tuple[int, int], ...]:
+        """Nodes ``(i, j)`` with ``i <= j`` in canonical order (``i == j``: loop)."""
+        return self._edges
+
+    @property
+    def vertex_genera(self) -> tuple[int, ...]:
         """Genus of each vertex, in canonical vertex order."""
         return self._genera
 
     @property
-    def edges(self) -> tuple[tuple[int, int], ...]:
-        """Edges ``(i, j)`` with ``i <= j`` in canonical order (``i == j``: loop)."""
-        return self._edges
-
-    @property
-    def legs(self) -> tuple[tuple[int, ...], ...]:
-        """Sorted leg labels at each vertex."""
+    def vertex_legs(self) -> tuple[tuple[int, ...], ...]:
+        """Sorted leg labels at each vertex, in canonical vertex order."""
         return self._legs
+
+    def genus_at(self, v: int) -> int:
+        """Genus of vertex ``v``."""
+        return self._genera[v]
+
+    def legs_at(self, v: int) -> tuple[int, ...]:
+        """Sorted leg labels at vertex ``v``."""
+        return self._legs[v]
 
     @property
     def key(self) -> tuple[int, ...]:
@@ -127,7 +183,7 @@ class DualGraph:
         return len(self._genera)
 
     @property
-    def n_edges(self) -> int:
+    def n_nodes(self) -> int:
         return len(self._edges)
 
     @property
@@ -171,7 +227,7 @@ class DualGraph:
 
         Examples
         --------
-        >>> StableGraph([1], [], [[1]]).to_dict()
+        >>> StableCurveGraph([(1, [1])]).to_dict()
         {'vertices': [{'genus': 1, 'legs': [1]}], 'edges': [], 'automorphisms': 1, 'codim': 0, 'notation': 'g1{1}'}
         """
         return {
@@ -183,13 +239,13 @@ class DualGraph:
         }
 
     @classmethod
-    def from_dict(cls, data: Mapping) -> "DualGraph":
+    def from_dict(cls, data: Mapping) -> "CurveGraph":
         """Inverse of :meth:`to_dict` (extra keys are ignored).
 
         Examples
         --------
-        >>> g = StableGraph([0, 0], [(0, 1)] * 2, [[1], [2]])
-        >>> StableGraph.from_dict(g.to_dict()) == g
+        >>> g = StableCurveGraph([(0, [1]), (0, [2])], nodes=[(0, 1)] * 2)
+        >>> StableCurveGraph.from_dict(g.to_dict()) == g
         True
         """
         try:
@@ -198,28 +254,28 @@ class DualGraph:
             edges = [tuple(e) for e in data["edges"]]
         except (KeyError, TypeError, AttributeError) as error:
             raise GraphError(f"not a graph description: missing or malformed {error}") from None
-        return cls(genera, edges, legs)
+        return cls._from_parts(genera, edges, legs)
 
-    def relabel_legs(self, mapping: Mapping[int, int]) -> "DualGraph":
+    def relabel_legs(self, mapping: Mapping[int, int]) -> "CurveGraph":
         """The graph with leg ``j`` renamed ``mapping[j]`` (labels not in the
         mapping are kept).
 
         Examples
         --------
-        >>> g = StableGraph([0, 0], [(0, 1)], [[1, 2], [3, 4]])
+        >>> g = StableCurveGraph([(0, [1, 2]), (0, [3, 4])], nodes=[(0, 1)])
         >>> g.relabel_legs({2: 3, 3: 2}).notation
         'g0{1,3}, g0{2,4} | 0-1'
         """
         legs = [[mapping.get(j, j) for j in x] for x in self._legs]
-        return type(self)(self._genera, self._edges, legs)
+        return type(self)._from_parts(self._genera, self._edges, legs)
 
     # -- comparison ----------------------------------------------------------
     def __eq__(self, other) -> bool:
-        if not isinstance(other, DualGraph):
+        if not isinstance(other, CurveGraph):
             return NotImplemented
         return self._key == other._key
 
-    def __lt__(self, other: "DualGraph") -> bool:
+    def __lt__(self, other: "CurveGraph") -> bool:
         return (self.codim, self._key) < (other.codim, other._key)
 
     def __hash__(self) -> int:
@@ -232,11 +288,11 @@ class DualGraph:
         return f"<{type(self).__name__} {self.notation}>"
 
     def __reduce__(self):
-        return (type(self), (self._genera, self._edges, self._legs))
+        return (type(self), (self.vertices, self._edges))
 
 
-class StableGraph(DualGraph):
-    """A stable graph: a :class:`DualGraph` all of whose vertices are stable.
+class StableCurveGraph(CurveGraph):
+    """A stable graph: a :class:`CurveGraph` all of whose vertices are stable.
 
     Raises
     ------
@@ -245,9 +301,9 @@ class StableGraph(DualGraph):
 
     Examples
     --------
-    >>> StableGraph([0, 2], [(0, 1)], [[1, 2], []]).genus
+    >>> StableCurveGraph([(0, [1, 2]), 2], nodes=[(0, 1)]).genus
     2
-    >>> StableGraph([0, 0], [(0, 1)], [[1], [2, 3]])
+    >>> StableCurveGraph([(0, [1]), (0, [2, 3])], nodes=[(0, 1)])
     Traceback (most recent call last):
     ...
     covertree.errors.GraphError: vertex 0 (genus 0, valence 2) is unstable: 2g - 2 + valence must be positive
@@ -274,6 +330,24 @@ def _unstable_vertex(genera, edges, legs) -> int | None:
         if 2 * g - 2 + valence[v] <= 0:
             return v
     return None
+
+
+def _records(vertices: Sequence) -> tuple[list, list]:
+    """Split vertex records (Vertex, (genus, legs) or bare genus) into genera and legs."""
+    if isinstance(vertices, (str, bytes)):
+        raise GraphError(f"vertices must be a sequence of (genus, legs) records, not {vertices!r}")
+    genera, legs = [], []
+    for v, record in enumerate(vertices):
+        if isinstance(record, int) and not isinstance(record, bool):
+            record = (record, ())
+        try:
+            genus, labels = record
+            labels = tuple(labels)
+        except (TypeError, ValueError):
+            raise GraphError(f"vertex {v}: {record!r} is not a (genus, legs) record") from None
+        genera.append(genus)
+        legs.append(labels)
+    return genera, legs
 
 
 def _validated(genera, edges, legs) -> tuple[tuple, tuple, tuple]:
@@ -327,3 +401,4 @@ def _relabelled(genera, edges, legs, order) -> tuple[tuple, tuple, tuple]:
         tuple(new_edges),
         tuple(tuple(sorted(legs[v])) for v in order),
     )
+

@@ -1,4 +1,4 @@
-"""DualGraph and StableGraph: validation, normalisation, conversions."""
+"""CurveGraph and StableCurveGraph: validation, normalisation, conversions."""
 
 import json
 import pickle
@@ -6,22 +6,22 @@ import pickle
 import pytest
 
 from covertree.errors import GraphError
-from covertree.graphs import DualGraph, StableGraph, stable_graphs
+from covertree.graphs import CurveGraph, StableCurveGraph, stable_graphs
 
 
 def test_constructor_normalises_to_canonical_form():
-    a = DualGraph([0, 2, 0], [(2, 1), (0, 1)], [[2], [], [1]])
-    b = DualGraph([0, 0, 2], [(0, 2), (2, 1)], [[1], [2], []])
+    a = CurveGraph([(0, [2]), 2, (0, [1])], nodes=[(2, 1), (0, 1)])
+    b = CurveGraph([(0, [1]), (0, [2]), 2], nodes=[(0, 2), (2, 1)])
     assert a == b and hash(a) == hash(b)
-    assert (a.genera, a.edges, a.legs) == (b.genera, b.edges, b.legs)
-    assert all(i <= j for i, j in a.edges) and list(a.edges) == sorted(a.edges)
+    assert (a.vertex_genera, a.nodes, a.vertex_legs) == (b.vertex_genera, b.nodes, b.vertex_legs)
+    assert all(i <= j for i, j in a.nodes) and list(a.nodes) == sorted(a.nodes)
 
 
 def test_basic_invariants():
-    g = StableGraph([0, 1], [(0, 1), (0, 1), (0, 0)], [[1], []])
-    assert (g.n_vertices, g.n_edges, g.n_legs, g.codim) == (2, 3, 1, 3)
+    g = StableCurveGraph([(0, [1]), 1], nodes=[(0, 1), (0, 1), (0, 0)])
+    assert (g.n_vertices, g.n_nodes, g.n_legs, g.codim) == (2, 3, 1, 3)
     assert g.genus == 0 + 1 + 3 - 2 + 1
-    v0 = g.genera.index(0)
+    v0 = g.vertex_genera.index(0)
     assert g.valence(v0) == 1 + 2 + 2
     assert g.automorphisms == 2 * 2  # swap the parallel edges, flip the loop
 
@@ -33,26 +33,28 @@ def test_basic_invariants():
         (([0, 0], []), "disconnected"),
         (([-1], []), "genus"),
         (([0], [(0, 1)]), "does not join"),
-        (([0, 0], [(0, 1)], [[1], [1]]), "twice"),
-        (([0], [], [[0]]), "positive"),
-        (([0], [], [[1], [2]]), "one entry per vertex"),
+        (([(0, [1]), (0, [1])], [(0, 1)]), "twice"),
+        (([(0, [0])], []), "positive"),
+        (([(0, [1], 5)], []), "not a .genus, legs. record"),
+        (("g0", []), "sequence of .genus, legs. records"),
+        (([(0, 3)], []), "not a .genus, legs. record"),
     ],
 )
 def test_invalid_graphs(args, fragment):
     with pytest.raises(GraphError, match=fragment):
-        DualGraph(*args)
+        CurveGraph(*args)
 
 
 def test_stable_graph_names_the_unstable_vertex():
     with pytest.raises(GraphError, match="vertex 1 .genus 0, valence 2."):
-        StableGraph([1, 0], [(0, 1)], [[], [1]])
-    assert not DualGraph([1, 0], [(0, 1)], [[], [1]]).is_stable()
+        StableCurveGraph([1, (0, [1])], nodes=[(0, 1)])
+    assert not CurveGraph([1, (0, [1])], nodes=[(0, 1)]).is_stable()
 
 
 def test_immutable():
-    g = StableGraph([2], [])
+    g = StableCurveGraph([2])
     with pytest.raises(AttributeError):
-        g.genera = (3,)
+        g.nodes = ()
 
 
 def test_dict_round_trip_through_json():
@@ -60,18 +62,18 @@ def test_dict_round_trip_through_json():
         data = json.loads(json.dumps(g.to_dict()))
         assert set(data) == {"vertices", "edges", "automorphisms", "codim", "notation"}
         assert data["automorphisms"] == g.automorphisms and data["codim"] == g.codim
-        assert StableGraph.from_dict(data) == g
+        assert StableCurveGraph.from_dict(data) == g
 
 
 def test_from_dict_rejects_malformed_input():
     with pytest.raises(GraphError):
-        DualGraph.from_dict({"edges": []})
+        CurveGraph.from_dict({"edges": []})
 
 
 def test_relabel_legs_and_pickle():
-    g = StableGraph([0, 0], [(0, 1)], [[1, 2], [3, 4]])
+    g = StableCurveGraph([(0, [1, 2]), (0, [3, 4])], nodes=[(0, 1)])
     h = g.relabel_legs({1: 3, 3: 1})
-    assert h != g and isinstance(h, StableGraph)
+    assert h != g and isinstance(h, StableCurveGraph)
     assert h.relabel_legs({1: 3, 3: 1}) == g
     assert pickle.loads(pickle.dumps(g)) == g
 
