@@ -213,7 +213,7 @@ def catalogue_to_csv(cat: Catalogue) -> str:
 LATEX_COLUMNS = (r"p{0.1\linewidth}p{0.24\linewidth}p{0.2\linewidth}rrrrrp{0.09\linewidth}")
 #: The same with the count column of grouped rows in front (the source
 #: column gives up the room it takes).
-LATEX_COLUMNS_GROUPED = (r"rp{0.1\linewidth}p{0.19\linewidth}p{0.2\linewidth}rrrrrp{0.09\linewidth}")
+LATEX_COLUMNS_GROUPED = (r"rp{0.09\linewidth}p{0.17\linewidth}p{0.17\linewidth}rrrrrp{0.09\linewidth}")
 
 
 def catalogue_to_latex(cat: Catalogue, standalone: bool = False, grouped: bool = True) -> str:

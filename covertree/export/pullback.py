@@ -33,7 +33,7 @@ import io
 from covertree.catalogue.pullback import Pullback
 from covertree.export.catalogue import problem_to_dict
 from covertree.export.graphs import notation_math
-from covertree.export.counts import _latex_profile
+from covertree.export.words import profiles_latex
 from covertree.export.latex import latex_document, sized_longtable, wrapped_cell
 from covertree.export.rational import latex_rational, rational_str
 from covertree.export.jsontext import json_text
@@ -100,7 +100,7 @@ def problem_line(pb: Pullback) -> str:
     if all(tuple(mu) == simple for mu in p.profiles):
         branching = f"simple branching at the {len(p.profiles)} branch points"
     else:
-        branching = "profiles " + ", ".join(_latex_profile(mu) for mu in p.profiles)
+        branching = "profiles " + profiles_latex(p.profiles)
     return (rf"Pullback $\mathrm{{br}}_*\mathrm{{src}}^*\delta$ of the boundary divisors of "
             rf"$\overline{{M}}_{{{p.genus}}}$ to the boundary divisors $D$ of "
             rf"$\overline{{M}}_{{{p.target_genus},{len(p.profiles)}}}$, for the covers of degree {p.degree} "
