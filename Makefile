@@ -6,7 +6,7 @@ BIN    := $(VENV)/bin
 CORE   := $(VENV)/.installed-core
 STAMP  := $(VENV)/.installed
 
-.PHONY: demo test bench clean
+.PHONY: demo test bench mutate clean
 
 $(BIN)/python:
 	$(PYTHON) -m venv $(VENV)
@@ -28,6 +28,21 @@ demo: $(CORE)
 
 test: $(STAMP)
 	$(BIN)/python -m pytest -q
+
+# Mutation testing, one layer at a time (each run takes minutes, niced):
+#   make mutate LAYER=stabilisation      (score against the work tree's tests)
+#   make mutate LAYER=graphs BASE=main   (score against the tests of main)
+# LAYER is one of symmetric, hurwitz, graphs, monodromy, gluing, stabilisation,
+# catalogue, tallies, intersection; scratch copies go to build/mutate/.
+MUTATE := $(VENV)/.installed-mutate
+
+$(MUTATE): $(STAMP)
+	$(BIN)/python -m pip install --quiet -e '.[test,draw,dask,mutate]'
+	touch $(MUTATE)
+
+mutate: $(MUTATE)
+	@test -n "$(LAYER)" || { echo "make mutate LAYER=name (see tools/mutate.py)" >&2; exit 2; }
+	nice -n 10 $(BIN)/python tools/mutate.py $(LAYER) $(if $(BASE),--tests-from $(BASE))
 
 bench: $(CORE)
 	$(BIN)/python benchmarks/run.py
