@@ -10,9 +10,11 @@ from covertree.cli.params import PROFILE, OneLineCommand, emit, format_option, o
 from covertree.export.counts import COUNT_COLUMNS, count_row, counts_csv, counts_json, counts_latex
 from covertree.hurwitz.numbers import hurwitz_numbers
 from covertree.hurwitz.problem import HurwitzProblem
+from covertree.export.words import profiles_text
 
 
-@click.command("count", cls=OneLineCommand)
+@click.command("count", cls=OneLineCommand,
+               short_help="Hurwitz numbers (connected and not) of a problem.")
 @click.option("--genus", "-g", "genus", type=int, default=None,
               help="Genus g of the connected source; missing branch points are simple "
                    "[default: the profiles are complete and g follows].")
@@ -47,7 +49,8 @@ def _table(problem, connected, disconnected) -> str:
     table = Table(title="Hurwitz numbers (labelled branch points, weight 1/|Aut|)")
     for name in COUNT_COLUMNS:
         table.add_column(name.replace("_", " "), justify="left" if name == "profiles" else "right")
-    row = count_row(problem, connected, disconnected)
+    row = list(count_row(problem, connected, disconnected))
+    row[COUNT_COLUMNS.index("profiles")] = profiles_text(problem.profiles)
     table.add_row(*map(str, row))
     buffer = io.StringIO()
     width = max(80, 60 + sum(len(str(cell)) for cell in row))

@@ -34,7 +34,8 @@ def parse_family(text: str) -> dict[str, Fraction]:
     return degrees
 
 
-@click.command("locus", cls=OneLineCommand)
+@click.command("locus", cls=OneLineCommand,
+               short_help="Class of the Hurwitz locus in Mbar_g (lambda, delta_j).")
 @problem_options
 @click.option("--family", "family", default=None,
               help='Degrees of lambda and the delta_i on a one-parameter family, e.g. "delta_0=10,delta_1=0": '
@@ -80,7 +81,8 @@ def _locus_table(result, numbers) -> str:
     return table_text(table)
 
 
-@click.command("integral", cls=OneLineCommand)
+@click.command("integral", cls=OneLineCommand,
+               short_help="Integral over the space of admissible covers.")
 @problem_options
 @click.option("--source", "source", default="", help='Source classes: lambda, delta_i, e.g. "lambda delta_0^2".')
 @click.option("--target", "target", default="", help='Target classes: psi_j (j a branch point), kappa.')

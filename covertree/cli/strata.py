@@ -11,7 +11,8 @@ from covertree.export.graphs import strata_csv, strata_json, strata_latex, strat
 from covertree.graphs.enumerate import stable_graphs
 
 
-@click.command("strata", cls=OneLineCommand)
+@click.command("strata", cls=OneLineCommand,
+               short_help="Stable graphs (boundary strata) of Mbar_{h,n}.")
 @click.option(
     "--target-genus", "-t", "genus", type=int, required=True, help="Genus h of the target."
 )
