@@ -127,9 +127,21 @@ def problem_hurwitz(problem: HurwitzProblem) -> Fraction:
     return plain * labellings(profiles, problem.marks)
 
 
+def stratum_result(problem: HurwitzProblem, base: BaseStratum, budget: list[int],
+                   hurwitz: Fraction) -> StratumResult:
+    """All covers over one stratum, in the one order every output uses
+    (:meth:`Cover.sort_key`); ``budget`` as in :func:`iter_stratum`."""
+    covers = sorted(iter_stratum(problem, base, budget), key=Cover.sort_key)
+    return StratumResult(base, tuple(covers), hurwitz)
+
+
 def build_catalogue(problem: HurwitzProblem, max_codim: int = 1, stratum: StableCurveGraph | None = None,
-                    labeled: bool = False, max_covers: int = DEFAULT_MAX_COVERS) -> Catalogue:
+                    labeled: bool = False, max_covers: int = DEFAULT_MAX_COVERS,
+                    strata: Iterable[BaseStratum] | None = None) -> Catalogue:
     """List every cover over every selected base stratum.
+
+    ``strata`` may pass the result of :func:`select_strata` (for instance
+    wrapped to report progress); by default it is computed here.
 
     Raises
     ------
@@ -138,8 +150,7 @@ def build_catalogue(problem: HurwitzProblem, max_codim: int = 1, stratum: Stable
     """
     hurwitz = problem_hurwitz(problem)
     budget = [max_covers]
-    results = []
-    for base in select_strata(problem, max_codim, stratum, labeled):
-        covers = sorted(iter_stratum(problem, base, budget), key=Cover.sort_key)
-        results.append(StratumResult(base, tuple(covers), hurwitz))
-    return Catalogue(problem, max_codim, hurwitz, tuple(results))
+    if strata is None:
+        strata = select_strata(problem, max_codim, stratum, labeled)
+    results = tuple(stratum_result(problem, base, budget, hurwitz) for base in strata)
+    return Catalogue(problem, max_codim, hurwitz, results)

@@ -146,9 +146,10 @@ def pullback_row(base: BaseStratum, covers: Iterable[Cover], divisors: list[str]
 
 
 def build_pullback(problem: HurwitzProblem, labeled: bool = False,
-                   max_covers: int = DEFAULT_MAX_COVERS) -> Pullback:
+                   max_covers: int = DEFAULT_MAX_COVERS, strata: Iterable[BaseStratum] | None = None) -> Pullback:
     """Coefficients ``c(D_j, delta)`` for every codimension-one base stratum
-    (one per orbit of like branch points unless ``labeled``).
+    (one per orbit of like branch points unless ``labeled``); ``strata`` may
+    pass :func:`pullback_strata` (for instance wrapped to report progress).
 
     Raises
     ------
@@ -160,9 +161,12 @@ def build_pullback(problem: HurwitzProblem, labeled: bool = False,
     divisors = boundary_divisors(problem.genus, problem.n_marks)
     hurwitz = problem_hurwitz(problem)
     budget = [max_covers]
-    rows = []
-    for base in select_strata(problem, 1, None, labeled):
-        if base.codim != 1:
-            continue
-        rows.append(pullback_row(base, iter_stratum(problem, base, budget), divisors, hurwitz))
-    return Pullback(problem, hurwitz, tuple(divisors), tuple(rows))
+    if strata is None:
+        strata = pullback_strata(problem, labeled)
+    rows = tuple(pullback_row(base, iter_stratum(problem, base, budget), divisors, hurwitz) for base in strata)
+    return Pullback(problem, hurwitz, tuple(divisors), rows)
+
+
+def pullback_strata(problem: HurwitzProblem, labeled: bool = False) -> list[BaseStratum]:
+    """The codimension-one base strata a pullback table has a row for."""
+    return [base for base in select_strata(problem, 1, None, labeled) if base.codim == 1]

@@ -35,7 +35,8 @@ def parse_family(text: str) -> dict[str, Fraction]:
     return degrees
 
 
-@click.command("locus", cls=OneLineCommand)
+@click.command("locus", cls=OneLineCommand,
+               short_help="Class of the Hurwitz locus in Mbar_g (lambda, delta_j).")
 @problem_options
 @click.option("--family", "family", default=None,
               help='Degrees of lambda and the delta_i (with --mark also psi_k and the delta_i_{...}) on a '
@@ -84,7 +85,8 @@ def _locus_table(result, numbers) -> str:
     return table_text(table)
 
 
-@click.command("integral", cls=OneLineCommand)
+@click.command("integral", cls=OneLineCommand,
+               short_help="Integral over the space of admissible covers.")
 @problem_options
 @click.option("--source", "source", default="",
               help='Source classes: lambda, delta_i, e.g. "lambda delta_0^2"; with --mark also psi_k (k a leg) '

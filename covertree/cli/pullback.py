@@ -9,17 +9,18 @@ import click
 from rich.table import Table
 
 from covertree.catalogue.catalogue import DEFAULT_MAX_COVERS
-from covertree.catalogue.pullback import Pullback, build_pullback
-from covertree.cli.catalogue import problem_options
+from covertree.catalogue.pullback import Pullback, build_pullback, pullback_strata
+from covertree.cli.catalogue import TYPES_HINT, problem_options
 from covertree.cli.params import OneLineCommand, emit, format_option, output_option
-from covertree.cli.render import table_text
+from covertree.cli.render import table_text, watched
 from covertree.export.pullback import pullback_to_csv, pullback_to_json, pullback_to_latex
 from covertree.export.rational import rational_str
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.tallies.pullback import pullback_from_types
 
 
-@click.command("pullback", cls=OneLineCommand)
+@click.command("pullback", cls=OneLineCommand,
+               short_help="Pullback of each boundary divisor to the cover space.")
 @problem_options
 @click.option("--labeled", "-l", is_flag=True, help="Every labelled base divisor, not one per orbit.")
 @click.option("--max-covers", "-m", "max_covers", type=click.IntRange(min=1), default=DEFAULT_MAX_COVERS,
@@ -39,7 +40,12 @@ def command(genus, target_genus, degree, profiles, marks, labeled, max_covers, s
     With --mark the source lands in Mbar_{G,n} and delta runs over its
     boundary divisors delta_0, delta_i_{a,b,...}."""
     problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles, marks=marks)
-    pb = pullback_from_types(problem, labeled) if engine == "types" else build_pullback(problem, labeled, max_covers)
+    if engine == "types":
+        pb = pullback_from_types(problem, labeled)
+    else:
+        strata = pullback_strata(problem, labeled)
+        watch = watched(strata, len(strata), "divisors", lambda b: b.graph.notation, hint=TYPES_HINT)
+        pb = build_pullback(problem, labeled, max_covers, strata=watch)
     emit(_render(pb, fmt, standalone), output)
     for r in pb.failures:
         click.echo(
@@ -75,7 +81,7 @@ def pullback_table(pb: Pullback) -> str:
         caption="c(D, delta) = sum_f #branches/|Aut f| * (order of delta along a branch); "
                 f"branch total == Hurwitz number: {'holds for every D' if not pb.failures else 'FAILS'}",
     )
-    table.add_column("base divisor D", overflow="fold")
+    table.add_column("base divisor D", no_wrap=True)
     table.add_column("orbit", justify="right")
     for d in pb.divisors:
         table.add_column(d, justify="right")
@@ -85,4 +91,4 @@ def pullback_table(pb: Pullback) -> str:
         table.add_row(r.base.graph.notation, str(r.base.orbit_size),
                       *(rational_str(r.coefficients[d]) for d in pb.divisors),
                       rational_str(r.branch_total), "holds" if r.check_holds else "FAILS")
-    return table_text(table, width=max(100, 60 + 10 * len(pb.divisors)))
+    return table_text(table)

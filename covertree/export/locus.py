@@ -38,12 +38,12 @@ Examples
 
 from __future__ import annotations
 
-import json
 from fractions import Fraction
 
 from covertree.export.rational import latex_rational, rational_str
 from covertree.locus.divisor import LocusClass
 from covertree.locus.integrals import CoverSpaceIntegral
+from covertree.export.jsontext import json_text
 
 __all__ = ["locus_to_dict", "locus_to_json", "locus_to_latex", "class_text", "integral_to_dict", "integral_to_json"]
 
@@ -70,7 +70,7 @@ def locus_to_dict(result: LocusClass, family: dict[str, Fraction] | None = None)
 
 
 def locus_to_json(result: LocusClass, family: dict[str, Fraction] | None = None) -> str:
-    return json.dumps(locus_to_dict(result, family), indent=1)
+    return json_text(locus_to_dict(result, family))
 
 
 def class_text(coefficients: dict[str, Fraction], latex: bool = False) -> str:
@@ -125,4 +125,4 @@ def integral_to_dict(result: CoverSpaceIntegral) -> dict:
 
 
 def integral_to_json(result: CoverSpaceIntegral) -> str:
-    return json.dumps(integral_to_dict(result), indent=1)
+    return json_text(integral_to_dict(result))

@@ -157,6 +157,7 @@ def test_stable_sources_are_strata_of_mbar_g():
         genus, sources = _stable_sources(*args)
         assert genus >= 2
         strata = set(stable_graphs(genus, 0))
+        assert sources
         for g in sources:
             assert isinstance(g, StableCurveGraph), g.notation
             assert g.genus == genus and g.n_legs == 0
