@@ -62,3 +62,14 @@ def test_psi_of_the_source_needs_a_mark():
 def test_inconsistent_family_is_refused():
     result = run("locus", *W, "--family", "psi_1=2,lambda=0,delta_0=1,delta_1_{}=0")
     assert result.exit_code == 2 and "10 lambda - 2 delta_1_{}" in result.output
+
+
+def test_readme_marked_weierstrass_example_is_true():
+    from pathlib import Path
+
+    readme = (Path(__file__).parents[2] / "README.md").read_text()
+    command = 'covertree locus -g 2 -t 0 -d 2 --mark 1 --family "psi_1=2,lambda=0,delta_0=0,delta_1_{}=0"'
+    assert command in readme
+    out = run("locus", *W, "--family", "psi_1=2,lambda=0,delta_0=0,delta_1_{}=0").output
+    for line in ("-120 lambda + 360 psi_1 - 120 delta_1_{}", "-lambda + 3 psi_1 - delta_1_{}"):
+        assert line in readme and line in out
