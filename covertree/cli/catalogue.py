@@ -34,6 +34,10 @@ def problem_options(func):
         click.option("--degree", "-d", "degree", type=int, required=True, help="Degree of the cover."),
         click.option("--profile", "-p", "profiles", type=PROFILE, multiple=True,
                      help="Profile over the next branch point, e.g. 3,1 (repeatable, in order)."),
+        click.option("--mark", "marks", multiple=True, metavar="J[:e[^c]]",
+                     help="Mark points of the source (legs 1..n, by branch point then index): J every "
+                          "ramified point over branch point J, J:e one point of index e, J:e^c c of them "
+                          "(repeatable)."),
     ]
     for option in reversed(options):
         func = option(func)
@@ -59,12 +63,12 @@ def problem_options(func):
                    "all for json, jsonl, csv, tikz]")
 @format_option(["table", "json", "jsonl", "csv", "latex", "tikz"])
 @output_option
-def command(genus, target_genus, degree, profiles, codim, stratum, labeled, max_covers, standalone, engine,
+def command(genus, target_genus, degree, profiles, marks, codim, stratum, labeled, max_covers, standalone, engine,
             rows, fmt, output):
     """List every admissible cover over a fixed curve of each boundary stratum of
     the target: source and stable source, |Aut|, multiplicity, weight; check
     that each stratum's weights add up to the Hurwitz number."""
-    problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles)
+    problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles, marks=marks)
     graph = parse_graph(stratum) if stratum is not None else None
     if engine == "types":
         if fmt not in ("table", "json"):

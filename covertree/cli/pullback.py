@@ -30,14 +30,16 @@ from covertree.tallies.pullback import pullback_from_types
               help="list: from every cover; types: from combinatorial types (no covers listed, for large degree).")
 @format_option(["table", "json", "csv", "latex"])
 @output_option
-def command(genus, target_genus, degree, profiles, labeled, max_covers, standalone, engine, fmt, output):
+def command(genus, target_genus, degree, profiles, marks, labeled, max_covers, standalone, engine, fmt, output):
     """For every boundary divisor D of the target's moduli space and every
     boundary divisor delta of Mbar_G, the coefficient c(D, delta) of D in
     br_* src^* delta: the sum over the covers f over D of
     #branches(f)/|Aut f| times the order of delta along a branch (the sum of
     the smoothing orders of the stable nodes of type delta). Checks that
-    sum_f #branches * L / |Aut f| equals the Hurwitz number over every D."""
-    problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles)
+    sum_f #branches * L / |Aut f| equals the Hurwitz number over every D.
+    With --mark the source lands in Mbar_{G,n} and delta runs over its
+    boundary divisors delta_0, delta_i_{a,b,...}."""
+    problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles, marks=marks)
     if engine == "types":
         pb = pullback_from_types(problem, labeled)
     else:
@@ -56,6 +58,10 @@ def command(genus, target_genus, degree, profiles, labeled, max_covers, standalo
         sys.exit(1)
 
 
+def _space(p: HurwitzProblem) -> str:
+    return f"Mbar_{{{p.genus},{p.n_marks}}}" if p.marks else f"Mbar_{p.genus}"
+
+
 def _render(pb: Pullback, fmt: str, standalone: bool) -> str:
     if fmt == "json":
         return pullback_to_json(pb)
@@ -70,7 +76,7 @@ def pullback_table(pb: Pullback) -> str:
     """The table rendering."""
     p = pb.problem
     table = Table(
-        title=f"pullbacks of the boundary of Mbar_{p.genus}: genus {p.genus} over genus {p.target_genus}, "
+        title=f"pullbacks of the boundary of {_space(p)}: genus {p.genus} over genus {p.target_genus}, "
               f"degree {p.degree}; Hurwitz number {rational_str(pb.hurwitz_number)}",
         caption="c(D, delta) = sum_f #branches/|Aut f| * (order of delta along a branch); "
                 f"branch total == Hurwitz number: {'holds for every D' if not pb.failures else 'FAILS'}",
