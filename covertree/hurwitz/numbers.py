@@ -76,7 +76,7 @@ __all__ = ["disconnected_hurwitz", "connected_hurwitz", "hurwitz_numbers", "tupl
 Profiles = tuple[tuple[int, ...], ...]
 
 #: above this degree, sparse profiles go to :mod:`covertree.hurwitz.sparse`
-SPARSE_DEGREE = 16
+SPARSE_DEGREE = 30
 
 
 def _normalise(degree: int, target_genus: int, profiles: Sequence[Sequence[int]]) -> Profiles:
@@ -141,15 +141,9 @@ def _splits(groups: list[tuple[tuple[int, ...], int]], k: int):
     so many simple points cost a handful of cases, not ``2^b``."""
     per_group = []
     for mu, count in groups:
-        options = [(tuple(nu), tuple(difference(mu, nu))) for nu in sub_partitions(mu, k)]
-        if not options:
+        choices = _group_choices(mu, count, k)
+        if not choices:
             return
-        choices = []
-        for combo in combinations_with_replacement(range(len(options)), count):
-            ways = factorial(count)
-            for c in Counter(combo).values():
-                ways //= factorial(c)
-            choices.append((ways, [options[i] for i in combo]))
         per_group.append(choices)
     for pick in product(*per_group):
         weight = prod(ways for ways, _ in pick)
@@ -157,6 +151,21 @@ def _splits(groups: list[tuple[tuple[int, ...], int]], k: int):
         inside = tuple(sorted(nu for nu, _ in pairs))
         outside = tuple(sorted(rest for _, rest in pairs))
         yield weight, inside, outside
+
+
+@lru_cache(maxsize=4096)
+def _group_choices(mu: tuple[int, ...], count: int, k: int) -> tuple:
+    """For ``count`` points of profile ``mu``: ``(ways, [(nu, mu - nu)...])``
+    over the multisets of sub-multisets ``nu`` of size ``k`` (memoised: the
+    same profiles recur across sub-degrees and calls)."""
+    options = [(tuple(nu), tuple(difference(mu, nu))) for nu in sub_partitions(mu, k)]
+    choices = []
+    for combo in combinations_with_replacement(range(len(options)), count):
+        ways = factorial(count)
+        for c in Counter(combo).values():
+            ways //= factorial(c)
+        choices.append((ways, [options[i] for i in combo]))
+    return tuple(choices)
 
 
 def tuple_counts(
