@@ -119,7 +119,7 @@ from math import factorial, lcm, perm, prod
 
 from covertree.catalogue.catalogue import problem_hurwitz, select_strata, weight_by_graph
 from covertree.catalogue.covers import legs_per_vertex, make_graph
-from covertree.errors import GraphError, IdentityError
+from covertree.errors import GraphError, IdentityError, ProblemError
 from covertree.graphs.canonical import _certify
 from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 from covertree.hurwitz.problem import HurwitzProblem
@@ -488,7 +488,8 @@ def _type_code(classes: Sequence[int], edges: Sequence[tuple[int, int, int, int]
 def iter_types(problem: HurwitzProblem, base: BaseStratum) -> Iterator[CoverType]:
     """Every type with connected source over a fixed curve of type ``base``,
     each isomorphism class once, with ``|Aut T|`` and its weight (slower than
-    :func:`tally_stratum`, which needs no automorphism groups).
+    :func:`tally_stratum`, which needs no automorphism groups).  Unmarked
+    problems only: the types of a marked problem are not listed.
 
     Examples
     --------
@@ -500,6 +501,8 @@ def iter_types(problem: HurwitzProblem, base: BaseStratum) -> Iterator[CoverType
     >>> [(t.edge_profiles, t.shapes[0].genus, t.automorphisms, str(t.weight)) for t in types]
     [(((1, 1),), 0, 2, '1'), (((2,),), 1, 1, '1')]
     """
+    if problem.marks:
+        raise ProblemError("types are listed for unmarked problems only; the tallies take the marks")
     _check_base(problem, base.graph)
     profiles = [tuple(p) for p in problem.profiles]
     data = _vertex_data(base.graph, problem.degree, problem.genus, profiles)
