@@ -9,7 +9,7 @@ import click
 from covertree.cli.params import PICK, OneLineCommand
 from covertree.errors import GraphError, InputError
 from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
-from covertree.graphs.notation import parse_graph
+from covertree.graphs.notation import graph_parts, parse_graph
 from covertree.export.words import count_noun
 
 
@@ -25,17 +25,24 @@ from covertree.export.words import count_noun
                    "(the '#' column of the table titled 'stratum S').")
 @click.option("--output", "-o", "output", type=click.Path(dir_okay=False, writable=True), required=True,
               help="Image file to write, FILE.svg or FILE.png.")
-def command(notation, cover_file, line, pick, output):
+@click.option("--dpi", "dpi", type=click.IntRange(50, 1200), default=300, show_default=True,
+              help="Resolution of a PNG in dots per inch (SVG: sizes only).")
+def command(notation, cover_file, line, pick, output, dpi):
     """Draw the graph NOTATION (e.g. 'g0, g1 | 0-0, 0-1^2'), or with --cover one
-    cover of a catalogue: its source (nodes labelled by ramification index), an
-    arrow, and its base (nodes labelled by profile). Needs the extra
-    covertree[draw] (matplotlib)."""
+    cover of a catalogue: its source above (each component over its image, nodes
+    labelled by ramification index), an arrow down, and its base (nodes
+    labelled by profile). A graph keeps the vertex order and the title of the
+    notation as written. Needs the extra covertree[draw] (matplotlib)."""
     from covertree.export.draw import draw_graph, draw_pair
+    from covertree.export.picture import vertex_images
 
     if (notation is None) == (cover_file is None):
         raise InputError("give either a graph NOTATION or --cover FILE (one of the two)")
     if notation is not None:
-        draw_graph(parse_graph(notation), output)
+        parts = graph_parts(notation)
+        genera, legs, edges = parts
+        draw_graph(parse_graph(notation), output, title=" ".join(notation.split()), dpi=dpi,
+                   parts=(genera, edges, legs))
         return
     if line is not None and pick is not None:
         raise InputError("give --line or --pick, not both")
@@ -51,7 +58,13 @@ def command(notation, cover_file, line, pick, output):
     base_labels = [",".join(map(str, p)) for p in profiles]
     degree = sum(profiles[0]) if profiles else None
     title = f"{source.notation}  ->  {base.notation}"
-    draw_pair(source, source_labels, base, base_labels, degree, output, title)
+    over = None
+    if indices and degree is not None:
+        over = vertex_images(source.nodes, source.n_vertices, indices, base.nodes, base.n_vertices, profiles, degree)
+    elif not base.nodes:
+        over = [0] * source.n_vertices
+    draw_pair((source.vertex_genera, source.nodes), source_labels, base, base_labels, degree, output, title,
+              over=over, dpi=dpi)
 
 
 def _graph(data) -> CurveGraph:

@@ -110,11 +110,11 @@ def test_draw_picks_cover_k_of_stratum_s(tmp_path, monkeypatch):
     picked = {}
     import covertree.export.draw as draw
 
-    monkeypatch.setattr(draw, "draw_pair", lambda source, *a, **k: picked.setdefault("source", source))
+    monkeypatch.setattr(draw, "draw_pair", lambda *a, **k: picked.setdefault("call", repr((a, k))))
     doc = json.loads(run("catalogue", *PROBLEM, "-f", "json").stdout)
     result = run("draw", "--cover", str(jsonl), "--pick", "3:5", "-o", str(tmp_path / "x.svg"))
     assert result.exit_code == 0, result.output
-    assert picked["source"].notation == doc["strata"][2]["covers"][4]["source"]["notation"]
+    assert doc["strata"][2]["covers"][4]["source"]["notation"] in picked["call"]
     missing = run("draw", "--cover", str(jsonl), "--pick", "3:99", "-o", str(tmp_path / "x.svg"))
     assert missing.exit_code == 2 and "stratum 3 has 10 covers" in missing.stderr
     too_far = run("draw", "--cover", str(jsonl), "--line", "99", "-o", str(tmp_path / "x.svg"))
