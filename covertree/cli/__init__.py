@@ -41,7 +41,9 @@ class CovertreeGroup(click.Group):
         try:
             return super().invoke(ctx)
         except CovertreeError as error:
-            click.echo(f"covertree: error: {error}", err=True)
+            from covertree.cli.limits import one_line
+
+            click.echo(f"covertree: error: {one_line(str(error))}", err=True)
             sys.exit(exit_status(error))
 
 
