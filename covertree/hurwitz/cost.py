@@ -25,7 +25,7 @@ True
 >>> check_count(10**6, 1, genus=2, profiles=[], limit=10**8)
 Traceback (most recent call last):
 ...
-covertree.errors.TooLargeError: degree 1000000 with 2 branch points needs about 10^18.1 steps, beyond the work limit 10^8 (--max-work); the largest feasible degree with 2 branch points is 431
+covertree.errors.TooLargeError: degree 1000000 with 2 branch points would take about 10^18.1 steps, beyond the work limit 10^8 (--max-work); the largest feasible degree with 2 branch points is 431
 """
 
 from __future__ import annotations

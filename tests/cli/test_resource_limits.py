@@ -83,3 +83,43 @@ def test_time_limit_stops_a_long_count():
 def test_hostile_integers_one_short_line(args, shown):
     line = refusal(run("count", "-t", "0", "-d", "3", *args))
     assert shown in line
+
+
+def test_all_strata_of_a_huge_genus_refused_at_once():
+    line = refusal(run("strata", "-t", "9" * 30, "-n", "4"))
+    assert "Mbar_{" + "9" * 30 + ",4}" in line and "genus" in line
+
+
+def test_all_strata_of_mbar_6_4_refused_naming_feasible_values():
+    line = refusal(run("strata", "-t", "6", "-n", "4"))
+    assert "Mbar_{6,4} up to codim 19" in line and "the largest feasible codim is" in line
+
+
+def test_strata_layer_guard_counts_the_candidates():
+    # Mbar_{0,7} (2752 strata, Arbarello-Cornalba-Griffiths ch. X; counted by the
+    # enumeration tests): a tiny work limit stops it between two codimensions
+    line = refusal(run("strata", "-t", "0", "-n", "7", "-f", "csv", "--max-work", "200000"))
+    assert "the largest feasible codim is" in line
+    assert run("strata", "-t", "0", "-n", "7", "-f", "csv").exit_code == 0
+
+
+def test_feasible_strata_still_listed():
+    result = run("strata", "-t", "1", "-n", "3", "-f", "csv")
+    assert result.exit_code == 0 and len(result.stdout.strip().splitlines()) == 1 + 23
+
+
+@pytest.mark.parametrize("notation, shown", [
+    ("g0{1,2,3,4} | 0-0^100000000", "edge multiplicity 100000000"),
+    ("g" + "9" * 5000, "5000 digits"),
+    ("g0{1,2} | 0-0^" + "9" * 5000, "5000 digits"),
+    ("g0, " * 3000 + "g0", "more than 2000"),
+])
+def test_hostile_notations_one_short_line(notation, shown):
+    line = refusal(run("catalogue", "-t", "0", "-d", "2", "-g", "1", "-s", notation))
+    assert shown in line
+
+
+@pytest.mark.parametrize("shard", ["1/\u00b2", "\u00b9/2", "1/" + "9" * 5000, "1/9999999999999999999999"])
+def test_foreign_or_huge_shard_refused(shard):
+    line = refusal(run("sweep", "-t", "1", "-g", "2", "-d", "2", "--shard", shard))
+    assert "I/N" in line
