@@ -89,13 +89,15 @@ class Catalogue:
 
 
 def select_strata(problem: HurwitzProblem, max_codim: int = 1, stratum: StableCurveGraph | None = None,
-                  labeled: bool = False) -> list[BaseStratum]:
+                  labeled: bool = False, max_work: float | None = None) -> list[BaseStratum]:
     """The base strata of a run: all of codimension ``<= max_codim`` (grouped by
-    equal-profile relabelling unless ``labeled``), or the single ``stratum``."""
+    equal-profile relabelling unless ``labeled``), or the single ``stratum``;
+    ``max_work`` as in :func:`covertree.graphs.enumerate.stable_graphs`."""
     profiles = [tuple(p) for p in problem.profiles]
     fixed = {j for j, _ in problem.marks}
     if stratum is None:
-        return base_strata(problem.target_genus, profiles, max_codim, labeled=labeled, fixed=fixed)
+        return base_strata(problem.target_genus, profiles, max_codim, labeled=labeled, fixed=fixed,
+                           max_work=max_work)
     if not isinstance(stratum, StableCurveGraph) or stratum.genus != problem.target_genus:
         raise GraphError(
             f"stratum {stratum.notation!r} is not a stable graph of genus "

@@ -73,7 +73,7 @@ def deadline(seconds: float | None) -> Iterator[None]:
         return
 
     def expire(signum, frame):
-        raise LimitError(f"stopped at the time limit of {seconds:g} s (--time-limit); nothing written; "
+        raise LimitError(f"stopped at the time limit of {seconds:g} s (--time-limit); no output file written; "
                          "raise --time-limit or make the problem smaller")
 
     previous = signal.signal(signal.SIGALRM, expire)

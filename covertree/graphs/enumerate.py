@@ -121,21 +121,21 @@ def check_strata(genus: int, n: int, codim: int, max_work: float | None) -> None
     >>> check_strata(6, 4, 19, 10**8)  # doctest: +ELLIPSIS
     Traceback (most recent call last):
     ...
-    covertree.errors.TooLargeError: the strata of Mbar_{6,4} up to codim 19 would take about 10^12.1 steps, beyond the work limit 10^8 (--max-work); the largest feasible codim is ..., genus 3 with 4 points, 1 point at genus 6
+    covertree.errors.TooLargeError: the strata of Mbar_{6,4} up to codim 19 would take about 10^12.1 steps, beyond the work limit 10^8 (--max-work); the largest feasible codim is ..., genus 3 with 4 points, 1 point at genus 6 at that codim
     """
     if max_work is None or strata_work(genus, n, codim) <= max_work:
         return
     parts = []
     k = largest_feasible(lambda c: strata_work(genus, n, c), 0, codim, max_work)
     parts.append(f"the largest feasible codim is {k}" if k is not None else "no codimension is feasible")
-    g = largest_feasible(lambda h: strata_work(h, n, 3 * h - 3 + n), 0, genus, max_work)
+    g = largest_feasible(lambda h: strata_work(h, n, codim), 0, genus, max_work)
     if g is not None and 2 * g - 2 + n > 0:
         parts.append(f"genus {g} with {n} points")
-    m = largest_feasible(lambda p: strata_work(genus, p, 3 * genus - 3 + p), 0, n, max_work)
+    m = largest_feasible(lambda p: strata_work(genus, p, codim), 0, n, max_work)
     if m is not None and 2 * genus - 2 + m > 0:
         parts.append(f"{m} point{'s' if m != 1 else ''} at genus {genus}")
     check_work(strata_work(genus, n, codim), max_work, f"the strata of Mbar_{{{genus},{n}}} up to codim {codim}",
-               ", ".join(parts) + ("" if codim >= 3 * genus - 3 + n else " (all codims)"))
+               ", ".join(parts) + (" at that codim" if len(parts) > 1 else ""))
 
 
 def _layer_work(layer: tuple[_Raw, ...]) -> float:

@@ -123,3 +123,28 @@ def test_hostile_notations_one_short_line(notation, shown):
 def test_foreign_or_huge_shard_refused(shard):
     line = refusal(run("sweep", "-t", "1", "-g", "2", "-d", "2", "--shard", shard))
     assert "I/N" in line
+
+
+def test_catalogue_with_too_many_smooth_covers_refused_before_searching():
+    # 22 simple points on a rational base in degree 12: the Hurwitz number
+    # alone bounds the covers over the smooth stratum (exit 3, a limit)
+    line = refusal(run("catalogue", "-t", "0", "-d", "12", "-g", "0"), 3)
+    assert "--max-covers" in line and "at least" in line
+
+
+def test_catalogue_time_limit_stops_a_fruitless_search(tmp_path):
+    out = tmp_path / "covers.jsonl"
+    line = refusal(run("catalogue", "-t", "1", "-d", "12", "-g", "2", "--time-limit", "1", "-f", "jsonl",
+                       "-o", str(out)), 3)
+    assert "time limit of 1 s" in line
+    assert list(tmp_path.iterdir()) == []
+
+
+def test_pullback_over_too_many_labelled_divisors_refused():
+    line = refusal(run("pullback", "-t", "0", "-d", "2", "-g", "20"))
+    assert "Mbar_{0,42} up to codim 1" in line
+
+
+def test_catalogue_count_guard_applies_before_building():
+    line = refusal(run("catalogue", "-t", "1", "-d", "100000", "-g", "2"))
+    assert "largest feasible degree" in line
