@@ -57,7 +57,7 @@ from covertree.limits import MAX_DIGITS
 #: most vertices, edges and legs (together) a notation may describe: far
 #: beyond any stratum or source covertree can handle (a cap on memory before
 #: anything is computed)
-MAX_GRAPH_ITEMS = 2000
+MAX_GRAPH_ITEMS = 600
 
 __all__ = ["format_graph", "graph_parts", "parse_graph"]
 

@@ -112,7 +112,7 @@ def test_feasible_strata_still_listed():
     ("g0{1,2,3,4} | 0-0^100000000", "edge multiplicity 100000000"),
     ("g" + "9" * 5000, "5000 digits"),
     ("g0{1,2} | 0-0^" + "9" * 5000, "5000 digits"),
-    ("g0, " * 3000 + "g0", "more than 2000"),
+    ("g0, " * 3000 + "g0", "more than 600"),
 ])
 def test_hostile_notations_one_short_line(notation, shown):
     line = refusal(run("catalogue", "-t", "0", "-d", "2", "-g", "1", "-s", notation))
