@@ -148,3 +148,15 @@ def test_pullback_over_too_many_labelled_divisors_refused():
 def test_catalogue_count_guard_applies_before_building():
     line = refusal(run("catalogue", "-t", "1", "-d", "100000", "-g", "2"))
     assert "largest feasible degree" in line
+
+
+def chain(vertices):
+    return ", ".join(["g1"] + ["g0"] * (vertices - 2) + ["g1"]) + " | " + ", ".join(
+        f"{i}-{i + 1}" for i in range(vertices - 1))
+
+
+@pytest.mark.parametrize("vertices", [250, 300])
+def test_picture_of_a_long_chain_refused(tmp_path, vertices):
+    line = refusal(run("draw", chain(vertices), "-o", str(tmp_path / "chain.svg")))
+    assert "largest feasible chain has 60 vertices" in line or "more than 600" in line
+    assert list(tmp_path.iterdir()) == []
