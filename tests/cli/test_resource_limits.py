@@ -160,3 +160,13 @@ def test_picture_of_a_long_chain_refused(tmp_path, vertices):
     line = refusal(run("draw", chain(vertices), "-o", str(tmp_path / "chain.svg")))
     assert "largest feasible chain has 60 vertices" in line or "more than 600" in line
     assert list(tmp_path.iterdir()) == []
+
+
+@pytest.mark.parametrize("args, shown", [
+    (("-d", "1..100000", "-t", "1", "-g", "2"), "degree 100000 with 2 branch points"),
+    (("-g", "0..99999", "-t", "1", "-d", "2"), "199996 branch points"),
+    (("-d", "1..300", "-g", "0..300", "-t", "0..300"), "27180300 problems"),
+])
+def test_sweep_refused_before_planning(args, shown):
+    line = refusal(run("sweep", *args))
+    assert shown in line
