@@ -50,6 +50,8 @@ DEFAULT_MAX_WORK = 10**8
 BYTES_PER_STEP = 10
 #: longest integer read from user text (digits after leading zeros)
 MAX_DIGITS = 18
+#: sizes beyond this are infeasible for every estimate (kept out of floats)
+HUGE = 10**15
 #: largest degree (and number of parts of a profile) covertree represents;
 #: the work estimates refuse far smaller ones for every engine
 MAX_DEGREE = 10**6
@@ -193,6 +195,8 @@ def log_partitions(n: int) -> float:
     """
     if n <= _EXACT_PARTITIONS:
         return math.log(_partition_table(_EXACT_PARTITIONS)[max(n, 0)])
+    if n > HUGE:
+        return math.inf
     return math.pi * math.sqrt(2 * n / 3) - math.log(4 * n * math.sqrt(3))
 
 
@@ -204,6 +208,8 @@ def partitions_up_to(n: int) -> float:
     """
     if n <= _EXACT_PARTITIONS:
         return float(sum(_partition_table(_EXACT_PARTITIONS)[: max(n, 0) + 1]))
+    if n > HUGE:
+        return math.inf
     # the terms grow fast: the last few dominate
     return _exp(log_partitions(n)) * math.sqrt(n)
 
@@ -260,6 +266,8 @@ def strata_count(genus: int, n: int, codim: int) -> float:
     >>> 10**8 < strata_count(6, 4, 19) < 10**11, strata_count(10**30, 4, 10**30) > 10**60
     (True, True)
     """
+    if max(genus, n, 0) > HUGE:
+        return math.inf
     top_codim = 3 * genus - 3 + n
     log_top = log_trivalent_graphs(genus, n)
     log_c1 = math.log1p((genus + 1) * 2.0 ** min(n - 1, 1000)) if n <= 1000 else n * math.log(2)
@@ -287,5 +295,7 @@ def strata_work(genus: int, n: int, codim: int) -> float:
     True
     """
     count = strata_count(genus, n, codim)
+    if count == math.inf:
+        return count
     vertices = min(2 * genus - 2 + n, codim + 1)  # at most one more vertex per node
     return count * STEPS_PER_STRATUM_VERTEX * max(1, vertices)

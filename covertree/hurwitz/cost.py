@@ -38,7 +38,7 @@ from math import comb
 from covertree.errors import TooLargeError
 from covertree.hurwitz.problem import MAX_POINTS
 from covertree.hurwitz.sparse import SPARSE_PARTS, SPARSE_SPECIAL
-from covertree.limits import check_work, largest_feasible, log_partitions, partitions_up_to
+from covertree.limits import HUGE, check_work, largest_feasible, log_partitions, partitions_up_to
 
 __all__ = ["MAX_POINTS", "check_count", "count_work", "simple_points_needed"]
 
@@ -65,6 +65,8 @@ def count_work(degree: int, target_genus: int, profiles: Sequence[Sequence[int]]
     >>> count_work(4, 1, [], 2) < 1000
     True
     """
+    if max(degree, simple) > HUGE:
+        return math.inf
     nus = [tuple(p for p in mu if p > 1) for mu in profiles] + [(2,)] * simple
     groups = Counter(nus)
     special = sum(c for nu, c in groups.items() if nu not in ((2,), ()))
