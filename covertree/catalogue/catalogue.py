@@ -139,11 +139,13 @@ def stratum_result(problem: HurwitzProblem, base: BaseStratum, budget: list[int]
 
 def build_catalogue(problem: HurwitzProblem, max_codim: int = 1, stratum: StableCurveGraph | None = None,
                     labeled: bool = False, max_covers: int = DEFAULT_MAX_COVERS,
-                    strata: Iterable[BaseStratum] | None = None) -> Catalogue:
+                    strata: Iterable[BaseStratum] | None = None, budget: list[int] | None = None) -> Catalogue:
     """List every cover over every selected base stratum.
 
     ``strata`` may pass the result of :func:`select_strata` (for instance
-    wrapped to report progress); by default it is computed here.
+    wrapped to report progress); by default it is computed here.  ``budget``
+    (``[max_covers]`` by default) counts down the covers still allowed as
+    they are found, so a caller holding it can show a running count.
 
     Raises
     ------
@@ -151,7 +153,7 @@ def build_catalogue(problem: HurwitzProblem, max_codim: int = 1, stratum: Stable
         When more than ``max_covers`` covers would be listed.
     """
     hurwitz = problem_hurwitz(problem)
-    budget = [max_covers]
+    budget = [max_covers] if budget is None else budget
     if strata is None:
         strata = select_strata(problem, max_codim, stratum, labeled)
     results = tuple(stratum_result(problem, base, budget, hurwitz) for base in strata)

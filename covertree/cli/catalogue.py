@@ -98,12 +98,14 @@ def _run(problem, graph, selection: tuple, rendering: tuple) -> None:
     grouped = _grouped(rows, fmt)
     check_cover_count(problem, graph, max_covers)
     strata = select_strata(problem, codim, graph, labeled, max_work=max_work)
+    budget = [max_covers]
     watch = watched(strata, len(strata), "strata", lambda b: b.graph.notation,
-                    hint=TYPES_HINT if fmt in ("table", "json") else None)
+                    hint=TYPES_HINT if fmt in ("table", "json") else None,
+                    extra=lambda: f"{max_covers - budget[0]} covers")
     if fmt == "jsonl":
-        failures = _stream(problem, watch, max_covers, output)
+        failures = _stream(problem, watch, budget, output)
     else:
-        cat = build_catalogue(problem, codim, graph, labeled, max_covers, strata=watch)
+        cat = build_catalogue(problem, codim, graph, labeled, max_covers, strata=watch, budget=budget)
         emit(_render(cat, fmt, standalone, grouped), output)
         failures = [(s.base.graph.notation, s.total_weight, s.hurwitz_number) for s in cat.failures]
     _report(failures)
@@ -137,11 +139,12 @@ def _render(cat: Catalogue, fmt: str, standalone: bool, grouped: bool) -> str:
     return catalogue_table(cat, grouped)
 
 
-def _stream(problem, strata, max_covers, output) -> list:
+def _stream(problem, strata, budget, output) -> list:
     """JSON lines, one per cover, in the order of the other formats, written
-    stratum by stratum; returns the failed strata."""
+    stratum by stratum (``budget``: ``[covers still allowed]``); returns the
+    failed strata."""
     hurwitz = problem_hurwitz(problem)
-    budget, failures = [max_covers], []
+    failures = []
     with AtomicOutput(output) as out:
         for number, base in enumerate(strata, start=1):
             result = stratum_result(problem, base, budget, hurwitz)

@@ -6,7 +6,7 @@ import io
 
 import click
 
-from covertree.cli.limits import deadline, max_work_option, time_limit_option
+from covertree.cli.limits import deadline, max_work_option, on_terminal, time_limit_option
 from covertree.cli.params import PROFILE, OneLineCommand, emit, format_option, output_option
 from covertree.export.counts import COUNT_COLUMNS, count_row, counts_csv, counts_json, counts_latex
 from covertree.hurwitz.cost import check_count
@@ -38,7 +38,7 @@ def command(genus, target_genus, degree, profiles, max_work, time_limit, fmt, ou
     naming the largest feasible degree."""
     check_count(degree, target_genus, genus, profiles, max_work)
     problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles)
-    with deadline(time_limit):
+    with deadline(time_limit), on_terminal(f"counting: degree {degree}, {problem.points} branch points"):
         connected, disconnected = hurwitz_numbers(problem)
     if fmt == "json":
         text = counts_json(problem, connected, disconnected)

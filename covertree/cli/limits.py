@@ -13,15 +13,16 @@ from __future__ import annotations
 
 import re
 import signal
+import sys
 from collections.abc import Iterator
-from contextlib import contextmanager
+from contextlib import contextmanager, nullcontext
 
 import click
 
 from covertree.errors import LimitError
 from covertree.limits import DEFAULT_MAX_WORK, BYTES_PER_STEP, parse_natural
 
-__all__ = ["deadline", "max_work_option", "one_line", "time_limit_option"]
+__all__ = ["deadline", "max_work_option", "one_line", "on_terminal", "time_limit_option"]
 
 _POWER = re.compile(r"\s*10\s*\^\s*([0-9]{1,3})\s*", re.ASCII)
 
@@ -91,6 +92,17 @@ _LONG_WORD = re.compile(r"\S{61,}")
 def _cut_word(match: re.Match) -> str:
     word = match.group(0)
     return f"{word[:40]}...({len(word)} characters)"
+
+
+def on_terminal(label: str, text=None):
+    """A spinner with ``label``, the running ``text()`` and the elapsed time on
+    stderr when it is a terminal (:func:`covertree.cli.render.running`; rich
+    is imported only then, keeping the start of a piped command fast)."""
+    if not sys.stderr.isatty():
+        return nullcontext()
+    from covertree.cli.render import running
+
+    return running(label, text, enabled=True)
 
 
 def one_line(message: str, width: int = 400) -> str:

@@ -6,7 +6,7 @@ import io
 
 import click
 
-from covertree.cli.limits import deadline, max_work_option, time_limit_option
+from covertree.cli.limits import deadline, max_work_option, on_terminal, time_limit_option
 from covertree.cli.params import OneLineCommand, emit, format_option, output_option
 from covertree.export.graphs import strata_csv, strata_json, strata_latex, strata_rows
 from covertree.graphs.enumerate import stable_graphs
@@ -47,8 +47,11 @@ def command(genus: int, points: int, codim: int | None, standalone: bool, max_wo
     (and again before each codimension), naming the largest feasible
     codimension, genus and number of points.
     """
-    with deadline(time_limit):
-        graphs = stable_graphs(genus, points, codim, max_work=max_work)
+    done = [0, 0]
+    with deadline(time_limit), on_terminal(f"strata of Mbar_{{{genus},{points}}}",
+                                       lambda: f"codim {done[0]}, {done[1]} strata so far"):
+        graphs = stable_graphs(genus, points, codim, max_work=max_work,
+                               on_layer=lambda k, found: done.__setitem__(slice(None), [k, found]))
     if fmt == "json":
         text = strata_json(genus, points, graphs)
     elif fmt == "csv":

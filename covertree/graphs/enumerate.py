@@ -62,7 +62,7 @@ def max_codimension(genus: int, n: int) -> int:
 
 
 def stable_graphs(genus: int, n: int, max_codim: int | None = None,
-                  max_work: float | None = None) -> list[StableCurveGraph]:
+                  max_work: float | None = None, on_layer=None) -> list[StableCurveGraph]:
     """Every stable graph of type ``(genus, n)`` with at most ``max_codim`` edges.
 
     Parameters
@@ -75,6 +75,9 @@ def stable_graphs(genus: int, n: int, max_codim: int | None = None,
         Work limit in steps (:mod:`covertree.limits`): the listing is refused
         when estimated beyond it, before it starts, and again before each
         codimension from the candidates the previous one gives.
+    on_layer : callable, optional
+        Called as ``on_layer(k, found)`` before codimension ``k`` is built
+        (``found`` strata so far), for progress reports.
 
     Returns
     -------
@@ -106,6 +109,8 @@ def stable_graphs(genus: int, n: int, max_codim: int | None = None,
     out: list[StableCurveGraph] = []
     spent = 0.0
     for k in range(last + 1):
+        if on_layer is not None:
+            on_layer(k, len(out))
         if k and max_work is not None:  # layers in order: each call recurses one level at most
             spent += _layer_work(_layer(genus, n, k - 1))
             _check_layer(genus, n, (k, last), (spent, len(out)), max_work)

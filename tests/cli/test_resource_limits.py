@@ -170,3 +170,43 @@ def test_picture_of_a_long_chain_refused(tmp_path, vertices):
 def test_sweep_refused_before_planning(args, shown):
     line = refusal(run("sweep", *args))
     assert shown in line
+
+
+def _with_terminal_stderr(args):
+    """Run covertree with stderr on a pseudo-terminal and stdout on a pipe."""
+    import os
+    import pty
+    import subprocess
+    import sys
+
+    leader, follower = pty.openpty()
+    try:
+        done = subprocess.run([sys.executable, "-m", "covertree", *args], stdout=subprocess.PIPE,
+                              stderr=follower, timeout=120, env={**os.environ, "COLUMNS": "100"})
+        os.close(follower)
+        follower = None
+        seen = b""
+        while True:
+            try:
+                chunk = os.read(leader, 65536)
+            except OSError:
+                break
+            if not chunk:
+                break
+            seen += chunk
+        return done, seen.decode(errors="replace")
+    finally:
+        os.close(leader)
+        if follower is not None:
+            os.close(follower)
+
+
+@pytest.mark.parametrize("args, shown", [
+    (["strata", "-t", "0", "-n", "7", "-f", "csv"], "strata so far"),
+    (["catalogue", "-t", "1", "-d", "4", "-g", "2", "-f", "csv"], "covers"),
+])
+def test_progress_with_running_count_on_a_terminal_only(args, shown):
+    done, terminal = _with_terminal_stderr(args)
+    assert done.returncode == 0
+    assert shown in terminal
+    assert shown.encode() not in done.stdout and b"\x1b" not in done.stdout
