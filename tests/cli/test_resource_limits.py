@@ -210,3 +210,14 @@ def test_progress_with_running_count_on_a_terminal_only(args, shown):
     assert done.returncode == 0
     assert shown in terminal
     assert shown.encode() not in done.stdout and b"\x1b" not in done.stdout
+
+
+@pytest.mark.parametrize("args, shown", [
+    (["series", "-g", "2", "-t", "1", "-D", "100000", "-w", "6"], "degree 100000"),
+    (["series", "-g", "2", "-t", "1", "-D", "1000000000", "-w", "6"], "--max-degree 1000000000"),
+    (["locus", "-g", "3", "-t", "0", "-d", "20000"], "degree 20000"),
+    (["integral", "-g", "2", "-t", "0", "-d", "40000", "--source", "lambda"], "degree 40000"),
+])
+def test_series_locus_and_integral_guarded(args, shown):
+    line = refusal(run(*args))
+    assert shown in line and "largest" in line
