@@ -193,8 +193,12 @@ def catalogue_to_json(cat: Catalogue, grouped: bool = False) -> str:
 def cover_to_jsonl(base, cover: Cover, stratum_number: int | None = None, cover_number: int | None = None) -> str:
     """One JSON line: the ``COVER`` keys plus ``"base"`` (GRAPH) and
     ``"orbit_size"``, and when given ``"stratum_number"`` and
-    ``"cover_number"`` (1-based, as the table numbers strata and covers)."""
-    record = {"base": base.graph.to_dict(), "orbit_size": base.orbit_size, **cover_to_dict(cover)}
+    ``"cover_number"`` (1-based, as the table numbers strata and covers), and
+    ``"degree"`` (so that a line read alone, e.g. by ``draw``, knows it)."""
+    raw = cover.raw
+    degree = sum(k for k, v in zip(raw.source_degrees, raw.source_vertex_over) if v == 0)
+    record = {"base": base.graph.to_dict(), "orbit_size": base.orbit_size, **cover_to_dict(cover),
+              "degree": degree}
     if stratum_number is not None:
         record.update(stratum_number=stratum_number, cover_number=cover_number)
     return json_line(record)

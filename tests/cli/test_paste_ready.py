@@ -226,3 +226,19 @@ def test_contracted_source_is_said_plainly(problem, contracted):
     if contracted:
         sources = {c["stable_source"]["notation"] for s in doc["strata"] for c in s["covers"]}
         assert sources == {"g1", "g0 | 0-0"}
+
+
+def test_a_smooth_cover_is_drawn_with_its_degree(tmp_path, monkeypatch):
+    # A cover over the open stratum has no node profiles to read the degree from:
+    # the JSON line carries it, and the arrow is marked with it.
+    pytest.importorskip("matplotlib")
+    import covertree.export.draw as drawing
+
+    lines = run("catalogue", *PROBLEM, "-f", "jsonl").stdout.splitlines()
+    assert lines and {json.loads(x)["degree"] for x in lines} == {3}
+    (tmp_path / "c.jsonl").write_text("\n".join(lines) + "\n")
+    seen = []
+    monkeypatch.setattr(drawing, "draw_pair", lambda *a, **k: seen.append(a[4]))
+    result = run("draw", "-c", str(tmp_path / "c.jsonl"), "--pick", "1:1", "-o", str(tmp_path / "c.png"))
+    assert result.exit_code == 0, result.output
+    assert json.loads(lines[0])["edge_profiles"] == [] and seen == [3]
