@@ -76,7 +76,7 @@ def branch_count(indices: tuple[int, ...] | list[int]) -> int:
     >>> branch_count((2, 2)), branch_count((3, 2)), branch_count(())
     (2, 1, 1)
     """
-    return prod(indices) // lcm(*indices) if indices else 1
+    return prod(indices) // lcm(*indices)  # both 1 for no index
 
 
 @dataclass(frozen=True)
@@ -213,7 +213,7 @@ def local_structure(cover: Cover) -> LocalStructure:
     nodes = []
     for k, es in enumerate(per_edge):
         es = tuple(sorted(es, reverse=True))
-        nodes.append(BaseNode(k, es, lcm(*es) if es else 1, branch_count(es)))
+        nodes.append(BaseNode(k, es, lcm(*es), branch_count(es)))
     branches = prod(n.branches for n in nodes)
     stable = _stable_nodes(cover, nodes[0].lcm) if n_base == 1 else None
     return LocalStructure(tuple(nodes), branches, stable, _source_indices(cover))

@@ -169,3 +169,23 @@ def test_node_types_where_no_moduli_space_exists():
     assert node_type([0, 0], [(0, 1)], 0, [[1, 2], [3, 4]]) == "delta_0_{1,2}"
     assert node_type([1, 0], [(0, 1)], 0) is None
     assert node_type([1, 1], [(0, 1)], 0) == "delta_1"
+
+
+def test_separating_node_far_along_a_chain():
+    # four elliptic curves in a chain: the third node splits genus 3 | 1, so it
+    # is delta_1 (worked by hand: the side of the third curve reaches the first)
+    genera, edges = [1, 1, 1, 1], [(0, 1), (1, 2), (2, 3)]
+    assert [node_type(genera, edges, k) for k in range(3)] == ["delta_1", "delta_2", "delta_1"]
+    assert node_type([1, 1, 1, 1], [(3, 2), (2, 1), (1, 0)], 0) == "delta_1"
+
+
+def test_base_nodes_are_listed_by_edge():
+    # codimension two: the chain g0{1,2} - g0 - g0{3,4,5,6}; degree 2, every base
+    # node has preimages (the sheets over it), so each has its own lcm and branches
+    covers = stratum_covers(parse_graph("g0{1,2}, g0, g0{3,4,5,6} | 0-1, 1-2"), 2, [(2,)] * 6)
+    assert covers
+    for c in covers:
+        s = local_structure(c)
+        assert [n.edge for n in s.nodes] == [0, 1]
+        assert all(sum(n.indices) == 2 and n.lcm in (1, 2) for n in s.nodes)
+        assert s.branches == prod(n.branches for n in s.nodes)

@@ -92,7 +92,8 @@ def test_boundary_divisors_of_small_marked_spaces():
     assert boundary_divisors(1, 1) == ["delta_0"]
     assert boundary_divisors(0, 4) == ["delta_0_{1,2}", "delta_0_{1,3}", "delta_0_{1,4}"]
     for n in (1, 2, 3):
-        with pytest.raises(ProblemError, match=rf"Mbar_\{{0,{n}\}}, which has no boundary divisor"):
+        with pytest.raises(ProblemError, match=rf"Mbar_\{{0,{n}\}}, which has no boundary divisor "
+                                               r"to pull back; mark more points or raise the genus$"):
             boundary_divisors(0, n)
-    with pytest.raises(ProblemError, match="got G = 1"):
+    with pytest.raises(ProblemError, match=r"got G = 1; mark points with --mark to land in Mbar_\{G,n\}$"):
         boundary_divisors(1)
