@@ -11,7 +11,9 @@ refreshes the code and the tests of an existing scratch copy and keeps its
 verdicts: mutants of unchanged functions that were killed stay killed (tests
 are only ever added), mutants of changed functions are made and run afresh,
 and the survivors are run again against the new tests.  This is the quick
-loop while killing survivors; a fresh run gives the same score.
+loop while killing survivors; a fresh run gives the same score.  The scratch
+copy keeps its test selection (a new test file inside a selected folder is
+picked up; a changed selection in ``LAYERS`` needs a fresh run).
 
 References
 ----------
@@ -97,7 +99,9 @@ def _prepare(layer: str, revision: str | None) -> Path:
 
 def _refresh(layer: str) -> Path:
     """The scratch copy of ``layer`` with the work tree's code and tests, its
-    verdicts kept (a fresh copy if there is none)."""
+    verdicts kept (a fresh copy if there is none).  Its configuration is kept
+    too: the tool drops every verdict when the test selection changes, so a
+    layer whose selection in :data:`LAYERS` changed needs a fresh run."""
     work = ROOT / "build" / "mutate" / layer
     if not (work / "mutants").is_dir():
         return _prepare(layer, None)
@@ -105,9 +109,6 @@ def _refresh(layer: str) -> Path:
     for name in ("covertree", "tests"):
         shutil.rmtree(work / name)
         shutil.copytree(ROOT / name, work / name, ignore=ignore)
-    modules, tests = LAYERS[layer]
-    present = [t for t in tests if (work / t).exists()]
-    (work / "pyproject.toml").write_text(_config(modules, present), "utf-8")
     return work
 
 

@@ -97,3 +97,24 @@ def test_boundary_divisors_of_small_marked_spaces():
             boundary_divisors(0, n)
     with pytest.raises(ProblemError, match=r"got G = 1; mark points with --mark to land in Mbar_\{G,n\}$"):
         boundary_divisors(1)
+
+
+def test_hand_worked_genus_2_double_covers_with_a_weierstrass_point_marked():
+    # Worked by hand, as the unmarked case above, with the ramification point over
+    # branch point 1 marked (one labelling; every involution fixes it, so |Aut| is
+    # unchanged).  Branch point 1 is now told apart, so the 2|4 split has two
+    # orbits.  1 on the two-point side: the rational bridge carries the leg and
+    # stays (three special points), its two nodes are non-separating of order 1
+    # each: c(delta_0) = 2/2 = 1.  1 on the four-point side: the bridge goes, one
+    # loop of order 2 on the marked elliptic curve: c(delta_0) = 1.  The 3|3 split:
+    # the node separates (genus 1 with the leg | genus 1), the divisor delta_1_{}
+    # of Mbar_{2,1}: c = 1/4.  These are the unmarked values, as forgetting the
+    # point pulls delta_0 and delta_1 back to delta_0 and delta_1_{}.
+    pb = build_pullback(HurwitzProblem.build(2, 0, genus=2, marks=["1"]))
+    assert pb.divisors == ("delta_0", "delta_1_{}") and pb.hurwitz_number == Fraction(1, 2)
+    got = {r.base.graph.notation: r.coefficients for r in pb.rows}
+    assert got == {
+        "g0{1,2}, g0{3,4,5,6} | 0-1": {"delta_0": Fraction(1), "delta_1_{}": Fraction(0)},
+        "g0{2,3}, g0{1,4,5,6} | 0-1": {"delta_0": Fraction(1), "delta_1_{}": Fraction(0)},
+        "g0{1,2,3}, g0{4,5,6} | 0-1": {"delta_0": Fraction(0), "delta_1_{}": Fraction(1, 4)},
+    }
