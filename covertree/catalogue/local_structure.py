@@ -30,7 +30,7 @@ dimension ``> 1`` and an order along a branch is a vector, not a number).
 
 Stable nodes are listed in the canonical edge order of ``cover.stable_source``
 (:func:`covertree.graphs.canonical.canonical_form` maps the stabilisation's
-edges to it), parallel stable nodes sorted by order.
+edges to it), parallel stable nodes sorted by order, then by chain.
 
 References
 ----------
@@ -247,8 +247,9 @@ def _stable_nodes(cover: Cover, big_l: int) -> tuple[StableNode, ...]:
         ends = (min(position[a], position[b]), max(position[a], position[b]))
         kind = node_type(stab.genera, stab.edges, raw_k, stab.legs)
         rows.append(_StableRow(ends, orders[raw_k], kind, stab.chains[raw_k]))
-    # parallel nodes are interchangeable positions: sort them by order
-    rows.sort(key=lambda row: (row.ends, row.order))
+    # parallel nodes are interchangeable positions: sort them by order (then
+    # chain, so that the listing is determined)
+    rows.sort(key=lambda row: (row.ends, row.order, row.chain))
     found = tuple(row.ends for row in rows)
     if found != tuple(cover.stable_source.nodes):  # pragma: no cover - a bug
         raise IdentityError(f"stable nodes {list(found)} do not match the stable source {cover.stable_source.notation}")

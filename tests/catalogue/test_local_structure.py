@@ -155,7 +155,7 @@ def test_orders_along_a_branch_need_a_codimension_one_base():
     [c, *_] = stratum_covers(parse_graph("g0{1,2}, g0, g0{3,4,5,6} | 0-1, 1-2"), 2, [(2,)] * 6)
     s = local_structure(c)
     assert s.stable_nodes is None and len(s.nodes) == 2
-    with pytest.raises(ProblemError, match="codimension-one base strata only"):
+    with pytest.raises(ProblemError, match="^orders along a branch are defined on codimension-one base strata only$"):
         s.order_of("delta_0")
 
 
