@@ -46,7 +46,7 @@ from fractions import Fraction
 
 from covertree import MODEL_VERSION, __version__
 from covertree.errors import InputError
-from covertree.export.rational import rational_str
+from covertree.rational import rational_str
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.sweep.tasks import StratumSummary, Task, problem_order
 from covertree.symmetric.partitions import Partition

@@ -20,6 +20,11 @@ whose genera add up to at most ``max_genus``: a connected source of genus
 number of shapes small for large degree (over a genus-0 component a piece
 unramified at the legs is a cyclic cover, ``alpha = (k), (k)``).
 
+References
+----------
+A. Hurwitz, "Uber Riemann'sche Flachen mit gegebenen Verzweigungspunkten",
+Mathematische Annalen 39 (1891): the Riemann-Hurwitz formula
+
 Examples
 --------
 Over a rational component with one simple leg (degree 3) and one half-edge:

@@ -124,7 +124,7 @@ from covertree.graphs.canonical import _certify
 from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.monodromy.local import special_points
-from covertree.stabilisation.stabilise import Stabilised, stabilise
+from covertree.stabilisation.stabilise import Stabilised, smoothing_orders, stabilise
 from covertree.strata.base import BaseStratum
 from covertree.tallies.gluing import count_matchings
 from covertree.tallies.shapes import Shape, local_multisets, piece_shapes
@@ -253,8 +253,9 @@ class TypeTally:
         out = []
         for e in self.entries:
             big_l = lcm(*e.edge_profiles[0])
-            index = [l for _, _, _, l in e.edges]
-            orders = [(n, sum(big_l // index[s] for s in chain)) for n, chain in enumerate(e.stabilised.chains)]
+            over, index = [q for _, _, q, _ in e.edges], [l for _, _, _, l in e.edges]
+            orders = [(n, smoothing_orders(chain, over, index, (big_l,))[0])
+                      for n, chain in enumerate(e.stabilised.chains)]
             out.append((e, Fraction(e.weight, big_l), orders))
         return out
 
