@@ -6,7 +6,7 @@ import json
 
 import click
 
-from covertree.cli.params import OneLineCommand
+from covertree.cli.params import OneLineCommand, check_destination
 from covertree.errors import GraphError, InputError
 from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 from covertree.graphs.notation import parse_graph
@@ -19,7 +19,8 @@ from covertree.graphs.notation import parse_graph
 @click.option("--line", "-n", "line", type=click.IntRange(min=1), default=1, show_default=True,
               help="With --cover: which line (cover) of the file.")
 @click.option("--output", "-o", "output", type=click.Path(dir_okay=False, writable=True), required=True,
-              help="Image file to write, FILE.svg or FILE.png.")
+              callback=lambda ctx, param, value: check_destination(value, param, ctx),
+              help="Image file to write (atomically), FILE.svg or FILE.png.")
 def command(notation, cover_file, line, output):
     """Draw the graph NOTATION (e.g. 'g0, g1 | 0-0, 0-1^2'), or with --cover one
     cover of a catalogue: its source (nodes labelled by ramification index), an

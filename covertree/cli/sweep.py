@@ -14,7 +14,8 @@ from rich.progress import BarColumn, MofNCompleteColumn, Progress, ProgressColum
 from rich.table import Table
 from rich.text import Text
 
-from covertree.cli.params import INT_RANGE, PROFILE, OneLineCommand, emit, format_option, output_option
+from covertree.cli.params import INT_RANGE, PROFILE, OneLineCommand, emit, format_option, output_option, \
+    refuse_output_onto_store
 from covertree.cli.render import table_text
 from covertree.errors import InputError
 from covertree.export.rational import rational_str
@@ -41,6 +42,13 @@ def _spec(genus, target_genus, degree, profiles, codim, labeled, engine="list") 
     _check_range("--degree", degree, 1)
     return SweepSpec(tuple(genus) if genus else (None,), tuple(target_genus), tuple(degree),
                      tuple(profiles), codim, labeled, engine)
+
+
+def _check_store(store: str | None, output: str | None) -> None:
+    """Refuse an empty ``--store`` name and an ``-o`` naming the store."""
+    if store == "":
+        raise InputError("--store: empty file name; give the path of an SQLite file")
+    refuse_output_onto_store(output, store)
 
 
 def _backend(jobs: int, dask: str | None):
@@ -116,6 +124,7 @@ def sweep(genus, target_genus, degree, profiles, codim, labeled, engine, fmt, jo
     codimension <= K: one row per (problem, stratum) with the number of
     covers, total weight, Hurwitz number, identity verdict and the weight
     landing on each boundary divisor delta_i of the source space."""
+    _check_store(store, output)
     spec = _spec(genus, target_genus, degree, profiles, codim, labeled, engine)
     piece = parse_shard(shard) if shard is not None else None
     plan = plan_sweep(spec)
@@ -156,6 +165,7 @@ def merge(files, fmt, quiet, output):
 @output_option
 def export(store, fmt, quiet, output):
     """Print every result in a store (nothing is recomputed)."""
+    _check_store(store, output)
     with ResultStore(store, create=False) as opened:
         report = store_report(opened.results())
     emit(render(report, fmt), output)

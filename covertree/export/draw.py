@@ -16,6 +16,7 @@ import math
 from collections.abc import Sequence
 
 from covertree.errors import InputError
+from covertree.export.files import atomic_output
 from covertree.export.tikz import LEG, LOOP_REACH, layout
 
 __all__ = ["DrawingUnavailable", "draw_graph", "draw_pair", "FORMATS"]
@@ -125,8 +126,11 @@ def _finish(fig, ax, box, title: str | None, path: str, plt) -> None:
     fig.set_size_inches((x1 - x0) * INCH_PER_UNIT, (y1 - y0) * INCH_PER_UNIT)
     if title:
         ax.set_title(title, fontsize=9, family="monospace")
-    fig.savefig(path, format=_suffix(path), dpi=150, bbox_inches="tight")
-    plt.close(fig)
+    try:
+        with atomic_output(path, binary=True) as handle:
+            fig.savefig(handle, format=_suffix(path), dpi=150, bbox_inches="tight")
+    finally:
+        plt.close(fig)
 
 
 def draw_graph(graph, path: str, labels: Sequence[str] | None = None, title: str | None = None) -> None:

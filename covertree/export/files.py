@@ -1,0 +1,164 @@
+"""Writing output files safely (the rules every ``-o`` follows).
+
+* A regular file (or a new name) is replaced atomically: the text goes to a
+  temporary file in the same folder, which takes the place of the target only
+  when complete, with the mode of the file it replaces.
+* Anything else that exists (a device node, a fifo, ``/dev/stdout``) is
+  written through, never replaced.
+* A symbolic link is followed to an existing target; a dangling link is
+  refused (it would create a file outside the requested path).
+* Temporary files are named ``.NAME.covertree-PID.XXXXXXXX.tmp``.  They are
+  removed when the write fails or is interrupted; one left behind by a killed
+  process (its PID no longer running) is removed by the next write into the
+  same folder.
+
+Examples
+--------
+>>> import os, tempfile
+>>> folder = tempfile.mkdtemp()
+>>> path = os.path.join(folder, "out.txt")
+>>> with atomic_output(path) as handle:
+...     _ = handle.write("done")
+>>> open(path).read(), sorted(os.listdir(folder))
+('done', ['out.txt'])
+"""
+
+from __future__ import annotations
+
+import os
+import re
+import tempfile
+from collections.abc import Iterator
+from contextlib import contextmanager
+from typing import IO
+
+from covertree.errors import InputError
+
+__all__ = ["atomic_output", "destination_problem", "is_leftover", "remove_leftovers", "same_file"]
+
+_LEFTOVER = re.compile(r"^\..*\.covertree-(\d+)\.[A-Za-z0-9_]+\.tmp$")
+
+
+def destination_problem(output: str) -> str | None:
+    """Why ``output`` can never be written (one phrase), or ``None``.
+
+    >>> destination_problem("")
+    'empty file name; give a path'
+    """
+    if output == "":
+        return "empty file name; give a path"
+    if os.path.islink(output) and not os.path.exists(output):
+        return f"{output!r} is a link to the missing {os.readlink(output)!r}; remove the link or give another name"
+    target = os.path.realpath(output)
+    if os.path.isdir(target):
+        return f"{output!r} is a folder; give a file"
+    if os.path.exists(target):
+        return None
+    directory = os.path.dirname(target)
+    if not os.path.isdir(directory):
+        return f"folder {directory!r} does not exist"
+    if not os.access(directory, os.W_OK | os.X_OK):
+        return f"folder {directory!r} is not writable"
+    return None
+
+
+def same_file(first: str, second: str) -> bool:
+    """True when the two names lead to one file (through links, hard links too).
+
+    >>> same_file("/a/../b", "/b")
+    True
+    """
+    try:
+        return os.path.samefile(first, second)
+    except OSError:
+        return os.path.realpath(first) == os.path.realpath(second)
+
+
+def is_leftover(name: str) -> bool:
+    """True for the name of a temporary file whose writer is no longer running.
+
+    >>> is_leftover(".out.json.covertree-999999999.abcd1234.tmp")
+    True
+    >>> is_leftover("out.json")
+    False
+    """
+    match = _LEFTOVER.match(name)
+    return match is not None and not _running(int(match.group(1)))
+
+
+def _running(pid: int) -> bool:
+    if pid == os.getpid():
+        return True
+    try:
+        os.kill(pid, 0)
+    except ProcessLookupError:
+        return False
+    except PermissionError:
+        return True
+    except (OverflowError, ValueError):
+        return False
+    return True
+
+
+def remove_leftovers(directory: str) -> list[str]:
+    """Remove the temporary files of killed writers in ``directory``; returns
+    their names (sorted)."""
+    try:
+        names = sorted(n for n in os.listdir(directory) if is_leftover(n))
+    except OSError:
+        return []
+    for name in names:
+        try:
+            os.unlink(os.path.join(directory, name))
+        except OSError:
+            pass
+    return names
+
+
+def _writes_through(output: str) -> bool:
+    target = os.path.realpath(output)
+    return os.path.exists(target) and not os.path.isfile(target)
+
+
+@contextmanager
+def atomic_output(output: str, binary: bool = False) -> Iterator[IO]:
+    """A stream whose content becomes ``output`` when the block succeeds
+    (atomically for regular files; see the module docstring).
+
+    Raises
+    ------
+    InputError
+        If ``output`` can never be written (:func:`destination_problem`).
+    """
+    problem = destination_problem(output)
+    if problem is not None:
+        raise InputError(f"--output: {problem}")
+    mode, encoding = ("wb", None) if binary else ("w", "utf-8")
+    if _writes_through(output):
+        with open(os.path.realpath(output), mode, encoding=encoding) as handle:
+            yield handle
+        return
+    target = os.path.realpath(output)
+    directory, name = os.path.split(target)
+    remove_leftovers(directory)
+    fd, tmp = tempfile.mkstemp(dir=directory, prefix=f".{name[:100]}.covertree-{os.getpid()}.", suffix=".tmp")
+    try:
+        with os.fdopen(fd, mode, encoding=encoding) as handle:
+            yield handle
+        _publish(tmp, target)
+    finally:
+        if os.path.exists(tmp):
+            os.unlink(tmp)
+
+
+def _publish(tmp: str, target: str) -> None:
+    """Give ``tmp`` the mode of the file it replaces (or the usual mode of a
+    new file) and move it into place in one step."""
+    if os.path.isfile(target):
+        mode = os.stat(target).st_mode & 0o7777
+    else:
+        mask = os.umask(0)
+        os.umask(mask)
+        mode = 0o666 & ~mask
+    os.chmod(tmp, mode)
+    os.replace(tmp, target)

@@ -1,0 +1,156 @@
+"""Output files against the store, drawings, temporary files and signals
+(issue 14, files; concurrency and signals)."""
+
+import os
+import signal
+import sqlite3
+import stat
+import threading
+import time
+
+import pytest
+from click.testing import CliRunner
+
+from covertree.cli import main
+from covertree.export.files import is_leftover, remove_leftovers
+
+SWEEP = ["sweep", "-g", "2", "-t", "1", "-d", "2", "-f", "json", "-q"]
+COUNT = ["count", "-g", "0", "-t", "0", "-d", "3", "-p", "3", "-f", "json"]
+
+
+def invoke(*args):
+    return CliRunner().invoke(main, list(args))
+
+
+def refused(result) -> str:
+    assert result.exit_code == 2, result.output
+    assert "Traceback" not in result.output
+    lines = result.stderr.strip().splitlines()
+    assert len(lines) == 1
+    return lines[0]
+
+
+@pytest.fixture
+def store(tmp_path):
+    path = tmp_path / "results.sqlite"
+    assert invoke(*SWEEP, "--store", str(path)).exit_code == 0
+    return path
+
+
+@pytest.mark.parametrize("how", ["same", "symlink", "hardlink", "dotted"])
+@pytest.mark.parametrize("command", ["sweep", "export"])
+def test_output_onto_the_store_refused(tmp_path, store, how, command):
+    before = store.read_bytes()
+    output = {"same": store, "dotted": tmp_path / "." / store.name,
+              "symlink": tmp_path / "link", "hardlink": tmp_path / "hard"}[how]
+    if how == "symlink":
+        output.symlink_to(store)
+    if how == "hardlink":
+        os.link(store, output)
+    args = SWEEP if command == "sweep" else ["export", "-f", "json", "-q"]
+    line = refused(invoke(*args, "--store", str(store), "-o", str(output)))
+    assert "--store" in line
+    assert store.read_bytes() == before
+
+
+def test_empty_store_name_refused():
+    assert "--store" in refused(invoke(*SWEEP, "--store", ""))
+
+
+def test_output_through_a_dangling_link_refused(tmp_path):
+    link = tmp_path / "out.json"
+    link.symlink_to(tmp_path / "elsewhere" / "x.json")
+    line = refused(invoke(*COUNT, "-o", str(link)))
+    assert "missing" in line
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["out.json"]
+
+
+def test_draw_refuses_a_dangling_link_and_writes_nothing(tmp_path):
+    link = tmp_path / "g.svg"
+    outside = tmp_path / "outside.svg"
+    link.symlink_to(outside)
+    refused(invoke("draw", "g1", "-o", str(link)))
+    assert not outside.exists()
+
+
+def test_draw_replaces_atomically_keeping_the_mode(tmp_path):
+    pytest.importorskip("matplotlib")
+    target = tmp_path / "g.svg"
+    target.write_text("old")
+    os.chmod(target, 0o600)
+    assert invoke("draw", "g0, g1 | 0-1", "-o", str(target)).exit_code == 0
+    assert b"<svg" in target.read_bytes()[:2000]
+    assert stat.S_IMODE(os.stat(target).st_mode) == 0o600
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["g.svg"]
+
+
+def test_draw_follows_a_link_to_an_existing_file(tmp_path):
+    pytest.importorskip("matplotlib")
+    real = tmp_path / "real.svg"
+    real.write_text("old")
+    link = tmp_path / "link.svg"
+    link.symlink_to(real)
+    assert invoke("draw", "g2", "-o", str(link)).exit_code == 0
+    assert link.is_symlink() and b"<svg" in real.read_bytes()[:2000]
+
+
+def test_leftovers_of_a_killed_writer_are_removed_by_the_next_run(tmp_path):
+    dead = tmp_path / ".out.json.covertree-999999999.abcd_123.tmp"
+    alive = tmp_path / f".out.json.covertree-{os.getppid()}.abcd_123.tmp"
+    other = tmp_path / ".notes.tmp"
+    for path in (dead, alive, other):
+        path.write_text("partial")
+    assert is_leftover(dead.name) and not is_leftover(alive.name) and not is_leftover(other.name)
+    assert invoke(*COUNT, "-o", str(tmp_path / "out.json")).exit_code == 0
+    assert sorted(p.name for p in tmp_path.iterdir()) == sorted([alive.name, other.name, "out.json"])
+    assert remove_leftovers(str(tmp_path)) == []
+
+
+# A catalogue written as JSON lines as it is found, long enough to be interrupted.
+SLOW = ["catalogue", "-g", "2", "-t", "0", "-d", "4", "-k", "2", "-f", "jsonl"]
+
+
+def temporaries(folder):
+    return [p for p in folder.iterdir() if ".covertree-" in p.name]
+
+
+def signal_when(ready, sig) -> threading.Thread:
+    """Send ``sig`` to this process (its main thread runs the command) once
+    ``ready()`` holds."""
+    def watch():
+        deadline = time.monotonic() + 60
+        while not ready() and time.monotonic() < deadline:
+            time.sleep(0.01)
+        os.kill(os.getpid(), sig)
+
+    thread = threading.Thread(target=watch, daemon=True)
+    thread.start()
+    return thread
+
+
+@pytest.mark.parametrize("sig", [signal.SIGTERM, signal.SIGHUP, signal.SIGINT])
+def test_signal_during_output_removes_the_temporary_file(tmp_path, sig):
+    output = tmp_path / "covers.jsonl"
+    watcher = signal_when(lambda: temporaries(tmp_path), sig)
+    result = invoke(*SLOW, "-o", str(output))
+    watcher.join()
+    assert result.exit_code == 128 + sig, result.output
+    assert result.stderr.count("\n") == 1 and f"interrupted by {signal.Signals(sig).name}" in result.stderr
+    assert temporaries(tmp_path) == [] and not output.exists()
+
+
+def stored(path) -> int:
+    try:
+        with sqlite3.connect(f"file:{path}?mode=ro", uri=True, timeout=5) as conn:
+            return conn.execute("SELECT COUNT(*) FROM results").fetchone()[0]
+    except sqlite3.Error:
+        return 0
+
+
+def test_ctrl_c_of_a_sweep_says_what_the_store_kept(tmp_path):
+    path = tmp_path / "results.sqlite"
+    watcher = signal_when(lambda: path.exists() and stored(path) > 0, signal.SIGINT)
+    result = invoke("sweep", "-g", "2", "-t", "0", "-d", "4", "-k", "2", "-q", "--store", str(path))
+    watcher.join()
+    assert result.exit_code == 130, result.output
+    assert result.stderr.count("\n") == 1 and "kept in the store" in result.stderr
