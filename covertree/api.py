@@ -285,7 +285,9 @@ class CatalogueResult(Result):
 
     def to_jsonl(self) -> str:
         """One JSON line per cover (``--format jsonl``)."""
-        return "".join(cover_to_jsonl(s.base, c) + "\n" for s in self._listed("jsonl").strata for c in s.covers)
+        return "".join(cover_to_jsonl(s.base, c, i, k) + "\n"
+                       for i, s in enumerate(self._listed("jsonl").strata, start=1)
+                       for k, c in enumerate(s.covers, start=1))
 
     def to_csv(self) -> str:
         return catalogue_to_csv(self._listed("csv"))

@@ -9,5 +9,5 @@ covertree=${COVERTREE:-covertree}
 $covertree catalogue --genus 3 --target-genus 1 --degree 2 --codim 2 \
     --format latex --standalone --output "$out/bielliptic_genus3.tex"
 $covertree catalogue --genus 3 --target-genus 1 --degree 2 --codim 2 \
-    --format json --output "$out/bielliptic_genus3.json"
+    --format json --rows grouped --output "$out/bielliptic_genus3.json"
 echo "wrote $out/bielliptic_genus3.tex and $out/bielliptic_genus3.json" >&2

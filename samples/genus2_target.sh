@@ -8,5 +8,5 @@ covertree=${COVERTREE:-covertree}
 $covertree catalogue --genus 4 --target-genus 2 --degree 2 --codim 1 \
     --format latex --standalone --output "$out/genus2_target.tex"
 $covertree catalogue --genus 4 --target-genus 2 --degree 2 --codim 1 \
-    --format json --output "$out/genus2_target.json"
+    --format json --rows grouped --output "$out/genus2_target.json"
 echo "wrote $out/genus2_target.tex and $out/genus2_target.json" >&2

@@ -9,5 +9,5 @@ covertree=${COVERTREE:-covertree}
 $covertree catalogue --genus 3 --target-genus 0 --degree 3 --codim 1 \
     --format latex --standalone --output "$out/trigonal_genus3.tex"
 $covertree catalogue --genus 3 --target-genus 0 --degree 3 --codim 1 \
-    --format json --output "$out/trigonal_genus3.json"
+    --format json --rows grouped --output "$out/trigonal_genus3.json"
 echo "wrote $out/trigonal_genus3.tex and $out/trigonal_genus3.json" >&2

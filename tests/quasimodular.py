@@ -8,8 +8,10 @@ curve, shared by the published checks and the benchmarks.
   generalized Jacobi theta function and quasimodular forms*, 1995); covertree's
   count with two labelled simple points is ``2 [q^d] F_2`` (OEIS A170991).
 - Genus 3: ``(-6E_2^6 + 15E_2^4E_4 + 4E_2^3E_6 - 12E_2^2E_4^2 - 12E_2E_4E_6 +
-  7E_4^3 + 4E_6^2) / 1492992`` (OEIS A170992), whose coefficients are
-  covertree's counts with four labelled simple points.
+  7E_4^3 + 4E_6^2) / 1492992``, the generating function given in the formula
+  entry of OEIS A170992 (R. Visser, 2023; the sequence's terms are from M. Roth
+  and N. Yui, Clay Math. Proc. 11, 2010), whose coefficients count covers with
+  four labelled simple points, covertree's convention.
 
 >>> [2 * c for c in f2_coefficients(6)[2:]]
 [Fraction(2, 1), Fraction(16, 1), Fraction(60, 1), Fraction(160, 1)]

@@ -25,6 +25,7 @@ from fractions import Fraction
 from covertree.catalogue.covers import Cover, stratum_covers
 from covertree.errors import GraphError, LimitError
 from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
+from covertree.hurwitz.marks import labellings
 from covertree.hurwitz.numbers import connected_hurwitz
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.strata.base import BaseStratum, base_strata, stratum_orbit
@@ -92,21 +93,22 @@ def select_strata(problem: HurwitzProblem, max_codim: int = 1, stratum: StableCu
     """The base strata of a run: all of codimension ``<= max_codim`` (grouped by
     equal-profile relabelling unless ``labeled``), or the single ``stratum``."""
     profiles = [tuple(p) for p in problem.profiles]
+    fixed = {j for j, _ in problem.marks}
     if stratum is None:
-        return base_strata(problem.target_genus, profiles, max_codim, labeled=labeled)
+        return base_strata(problem.target_genus, profiles, max_codim, labeled=labeled, fixed=fixed)
     if not isinstance(stratum, StableCurveGraph) or stratum.genus != problem.target_genus:
         raise GraphError(
             f"stratum {stratum.notation!r} is not a stable graph of genus "
             f"{problem.target_genus} (the target genus)"
         )
-    base = stratum_orbit(stratum, profiles)
+    base = stratum_orbit(stratum, profiles, fixed)
     return [BaseStratum(stratum, 1)] if labeled else [base]
 
 
 def iter_stratum(problem: HurwitzProblem, base: BaseStratum, budget: list[int]) -> Iterator[Cover]:
     """Covers over one stratum, streamed; ``budget[0]`` counts down the covers
     still allowed (:class:`LimitError` when exhausted)."""
-    for cover in stratum_covers(base.graph, problem.degree, [tuple(p) for p in problem.profiles]):
+    for cover in stratum_covers(base.graph, problem.degree, [tuple(p) for p in problem.profiles], problem.marks):
         if budget[0] <= 0:
             raise LimitError(
                 f"more covers than the limit over stratum {base.graph.notation}; "
@@ -117,13 +119,29 @@ def iter_stratum(problem: HurwitzProblem, base: BaseStratum, budget: list[int]) 
 
 
 def problem_hurwitz(problem: HurwitzProblem) -> Fraction:
-    """The connected Hurwitz number of the problem (section 5)."""
-    return connected_hurwitz(problem.degree, problem.target_genus, [tuple(p) for p in problem.profiles])
+    """The connected Hurwitz number of the problem (section 5); for a marked
+    problem the number of marked covers, ``H`` times the labellings of the
+    marked points (:func:`covertree.hurwitz.marks.labellings`)."""
+    profiles = [tuple(p) for p in problem.profiles]
+    plain = connected_hurwitz(problem.degree, problem.target_genus, profiles)
+    return plain * labellings(profiles, problem.marks)
+
+
+def stratum_result(problem: HurwitzProblem, base: BaseStratum, budget: list[int],
+                   hurwitz: Fraction) -> StratumResult:
+    """All covers over one stratum, in the one order every output uses
+    (:meth:`Cover.sort_key`); ``budget`` as in :func:`iter_stratum`."""
+    covers = sorted(iter_stratum(problem, base, budget), key=Cover.sort_key)
+    return StratumResult(base, tuple(covers), hurwitz)
 
 
 def build_catalogue(problem: HurwitzProblem, max_codim: int = 1, stratum: StableCurveGraph | None = None,
-                    labeled: bool = False, max_covers: int = DEFAULT_MAX_COVERS) -> Catalogue:
+                    labeled: bool = False, max_covers: int = DEFAULT_MAX_COVERS,
+                    strata: Iterable[BaseStratum] | None = None) -> Catalogue:
     """List every cover over every selected base stratum.
+
+    ``strata`` may pass the result of :func:`select_strata` (for instance
+    wrapped to report progress); by default it is computed here.
 
     Raises
     ------
@@ -132,8 +150,7 @@ def build_catalogue(problem: HurwitzProblem, max_codim: int = 1, stratum: Stable
     """
     hurwitz = problem_hurwitz(problem)
     budget = [max_covers]
-    results = []
-    for base in select_strata(problem, max_codim, stratum, labeled):
-        covers = sorted(iter_stratum(problem, base, budget), key=Cover.sort_key)
-        results.append(StratumResult(base, tuple(covers), hurwitz))
-    return Catalogue(problem, max_codim, hurwitz, tuple(results))
+    if strata is None:
+        strata = select_strata(problem, max_codim, stratum, labeled)
+    results = tuple(stratum_result(problem, base, budget, hurwitz) for base in strata)
+    return Catalogue(problem, max_codim, hurwitz, results)

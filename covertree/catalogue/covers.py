@@ -70,41 +70,69 @@ class Cover:
 
 
 def divisor_name(graph: CurveGraph) -> str | None:
-    """The usual name of a codimension-one stratum of ``Mbar_g``: ``delta_0``
-    (irreducible, one loop) or ``delta_i`` (separating, genus ``i <= g/2`` on one
-    side); ``None`` for other codimensions or graphs with legs.
+    """The name of a codimension-one stratum of ``Mbar_g`` or ``Mbar_{g,n}``:
+    ``delta_0`` (irreducible, one loop) or, without legs, ``delta_i``
+    (separating, genus ``i <= g/2`` on one side) and, with legs,
+    ``delta_i_{a,b,...}`` (the names of :mod:`covertree.intersection.boundary`);
+    ``None`` for other codimensions or when there is no such moduli space.
 
     >>> divisor_name(StableCurveGraph([1, 2], nodes=[(0, 1)]))
     'delta_1'
+    >>> divisor_name(StableCurveGraph([1, (1, [1])], nodes=[(0, 1)]))
+    'delta_1_{}'
     """
-    if graph.codim != 1 or graph.n_legs or graph.genus < 2:
+    n = graph.n_legs
+    if graph.codim != 1 or 2 * graph.genus - 2 + n <= 0 or (graph.genus < 2 and not n):
         return None
     if graph.n_vertices == 1:
         return "delta_0"
-    return f"delta_{min(graph.vertex_genera)}"
+    if not n:
+        return f"delta_{min(graph.vertex_genera)}"
+    return separating_name(graph.genus, n, graph.genus_at(0), graph.legs_at(0))
 
 
-def make_graph(genera: Sequence[int], edges: Sequence[tuple[int, int]]) -> CurveGraph:
+def separating_name(genus: int, n: int, side_genus: int, side_legs: Sequence[int]) -> str:
+    """The name of the separating divisor of ``Mbar_{genus,n}`` with one side
+    of genus ``side_genus`` carrying ``side_legs``."""
+    from covertree.intersection.boundary import canonical_key, divisor_name as name
+
+    return name(genus, n, canonical_key(genus, n, side_genus, tuple(side_legs)))
+
+
+def legs_per_vertex(n_vertices: int, carriers: Sequence[int]) -> tuple[tuple[int, ...], ...]:
+    """Leg labels ``1..n`` at each vertex from the vertex carrying each leg.
+
+    >>> legs_per_vertex(2, [1, 0, 1])
+    ((2,), (1, 3))
+    """
+    return tuple(tuple(k for k, v in enumerate(carriers, start=1) if v == w) for w in range(n_vertices))
+
+
+def make_graph(genera: Sequence[int], edges: Sequence[tuple[int, int]],
+               legs: Sequence[Sequence[int]] | None = None) -> CurveGraph:
     """A :class:`StableCurveGraph` when stable, else a :class:`CurveGraph`."""
-    graph = CurveGraph._from_parts(genera, edges)
-    return StableCurveGraph._from_parts(genera, edges) if graph.is_stable() else graph
+    graph = CurveGraph._from_parts(genera, edges, legs)
+    return StableCurveGraph._from_parts(genera, edges, legs) if graph.is_stable() else graph
 
 
 def to_cover(raw: GluedCover, genus: int) -> Cover:
     """Build the user-facing cover, checking the source's arithmetic genus."""
-    source = make_graph(raw.source_genera, raw.source_edges)
+    legs = legs_per_vertex(len(raw.source_genera), raw.source_legs)
+    source = make_graph(raw.source_genera, raw.source_edges, legs)
     if source.genus != genus:
         raise IdentityError(
             f"source {source.notation} has arithmetic genus {source.genus}, not {genus}"
         )
-    stab = stabilise(raw.source_genera, raw.source_edges)
-    stable = make_graph(stab.genera, stab.edges)
+    stab = stabilise(raw.source_genera, raw.source_edges, legs)
+    stable = make_graph(stab.genera, stab.edges, stab.legs)
     return Cover(raw.edge_profiles, source, stable, raw.automorphisms, raw.multiplicity, raw, stab)
 
 
-def stratum_covers(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]]) -> Iterator[Cover]:
-    """Every admissible cover over a fixed curve of type ``base``, streamed in
-    the engine's deterministic order."""
+def stratum_covers(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]],
+                   marks: Sequence[tuple[int, int]] = ()) -> Iterator[Cover]:
+    """Every admissible cover over a fixed curve of type ``base`` (marked
+    covers when ``marks`` are given), streamed in the engine's deterministic
+    order."""
     genus = source_genus(degree, base.genus, [tuple(p) for p in profiles])
-    for raw in glued_covers(base, degree, profiles):
+    for raw in glued_covers(base, degree, profiles, marks):
         yield to_cover(raw, genus)

@@ -55,7 +55,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 from math import lcm, prod
 
-from covertree.catalogue.covers import Cover
+from covertree.catalogue.covers import Cover, legs_per_vertex
 from covertree.errors import IdentityError
 from covertree.graphs.canonical import canonical_form
 
@@ -152,19 +152,25 @@ class LocalStructure:
         return sum(n.order for n in self.stable_nodes if n.type == delta)
 
 
-def node_type(genera, edges, k: int) -> str | None:
-    """The divisor type of edge ``k`` of a connected graph of genus ``>= 2``
-    (no legs): ``delta_0`` if non-separating, else ``delta_i`` with ``i`` the
-    smaller genus of the two sides; ``None`` for total genus below 2.
+def node_type(genera, edges, k: int, legs=None) -> str | None:
+    """The divisor type of edge ``k`` of a connected graph: ``delta_0`` if
+    non-separating; else, without legs, ``delta_i`` with ``i`` the smaller
+    genus of the two sides, and with legs (``legs[v]`` the labels at ``v``,
+    ``1..n`` in all) the name of the separating divisor of ``Mbar_{g,n}``
+    (:func:`covertree.catalogue.covers.separating_name`); ``None`` when there
+    is no such moduli space (genus below 2 without legs, or ``2g - 2 + n <= 0``).
 
     >>> node_type([1, 2], [(0, 1)], 0), node_type([0, 1], [(0, 0), (0, 1)], 1)
     ('delta_1', 'delta_1')
     >>> node_type([0, 0], [(0, 1)] * 3, 0)
     'delta_0'
+    >>> node_type([1, 1], [(0, 1)], 0, [[], [1]]), node_type([2, 0], [(0, 1)], 0, [[3], [1, 2]])
+    ('delta_1_{}', 'delta_0_{1,2}')
     """
     n = len(genera)
     total = sum(genera) + len(edges) - n + 1
-    if total < 2:
+    n_legs = sum(len(x) for x in legs) if legs is not None else 0
+    if (total < 2 and not n_legs) or 2 * total - 2 + n_legs <= 0:
         return None
     a, b = edges[k]
     if a == b:
@@ -183,7 +189,11 @@ def node_type(genera, edges, k: int) -> str | None:
         return "delta_0"
     inner = sum(1 for x, y in others if x in side and y in side)
     genus = sum(genera[v] for v in side) + inner - len(side) + 1
-    return f"delta_{min(genus, total - genus)}"
+    if not n_legs:
+        return f"delta_{min(genus, total - genus)}"
+    from covertree.catalogue.covers import separating_name
+
+    return separating_name(total, n_legs, genus, [j for v in side for j in legs[v]])
 
 
 def local_structure(cover: Cover) -> LocalStructure:
@@ -205,7 +215,7 @@ def local_structure(cover: Cover) -> LocalStructure:
 def _source_indices(cover: Cover) -> tuple[int, ...]:
     raw = cover.raw
     _key, vertex_order, edge_order = canonical_form(raw.source_genera, raw.source_edges,
-                                                    [()] * len(raw.source_genera))
+                                                    legs_per_vertex(len(raw.source_genera), raw.source_legs))
     position = {v: i for i, v in enumerate(vertex_order)}
     rows = sorted(
         (tuple(sorted((position[raw.source_edges[k][0]], position[raw.source_edges[k][1]]))),
@@ -221,13 +231,14 @@ def _stable_nodes(cover: Cover, big_l: int) -> tuple[StableNode, ...]:
     stab = cover.stabilised
     index = cover.raw.source_edge_index
     orders = [sum(big_l // index[n] for n in chain) for chain in stab.chains]
-    _key, vertex_order, edge_order = canonical_form(stab.genera, stab.edges, [()] * len(stab.genera))
+    _key, vertex_order, edge_order = canonical_form(stab.genera, stab.edges, stab.legs)
     position = {v: i for i, v in enumerate(vertex_order)}
     out = []
     for k, raw_k in enumerate(edge_order):
         a, b = stab.edges[raw_k]
         ends = tuple(sorted((position[a], position[b])))
-        out.append([ends, orders[raw_k], node_type(stab.genera, stab.edges, raw_k), stab.chains[raw_k]])
+        kind = node_type(stab.genera, stab.edges, raw_k, stab.legs)
+        out.append([ends, orders[raw_k], kind, stab.chains[raw_k]])
     # parallel nodes are interchangeable positions: sort them by order
     out.sort(key=lambda x: (x[0], x[1]))
     expected = tuple(cover.stable_source.nodes)

@@ -64,20 +64,34 @@ from covertree.strata.base import BaseStratum
 __all__ = ["PullbackRow", "Pullback", "boundary_divisors", "pullback_row", "build_pullback"]
 
 
-def boundary_divisors(genus: int) -> list[str]:
-    """Names of the codimension-one strata of ``Mbar_G``.
+def boundary_divisors(genus: int, n: int = 0) -> list[str]:
+    """Names of the codimension-one strata of ``Mbar_G`` (``n = 0``) or of
+    ``Mbar_{G,n}`` for a source with ``n`` legs: ``delta_0`` and the separating
+    ``delta_i_{a,b,...}`` of :mod:`covertree.intersection.boundary`.
 
     >>> boundary_divisors(2), boundary_divisors(5)
     (['delta_0', 'delta_1'], ['delta_0', 'delta_1', 'delta_2'])
+    >>> boundary_divisors(2, 1), boundary_divisors(1, 2)
+    (['delta_0', 'delta_1_{}'], ['delta_0', 'delta_0_{1,2}'])
 
     Raises
     ------
     ProblemError
-        For ``G < 2`` (no ``Mbar_G``).
+        For ``G < 2`` without legs (no ``Mbar_G``), or a space ``Mbar_{G,n}``
+        that is not stable or has no boundary divisor.
     """
+    if n:
+        from covertree.intersection.boundary import divisor_name, divisors
+
+        names = [divisor_name(genus, n, key) for key in divisors(genus, n)] if 2 * genus - 2 + n > 0 else []
+        if not names:
+            raise ProblemError(f"the marked source lands in Mbar_{{{genus},{n}}}, which has no boundary divisor "
+                               "to pull back; mark more points or raise the genus")
+        return names
     if genus < 2:
         raise ProblemError(
-            f"pullbacks to Mbar_G need source genus G >= 2 (there is no Mbar_{genus}); got G = {genus}"
+            f"pullbacks to Mbar_G need source genus G >= 2 (there is no Mbar_{genus}); got G = {genus}; "
+            "mark points with --mark to land in Mbar_{G,n}"
         )
     return [f"delta_{i}" for i in range(genus // 2 + 1)]
 
@@ -132,9 +146,10 @@ def pullback_row(base: BaseStratum, covers: Iterable[Cover], divisors: list[str]
 
 
 def build_pullback(problem: HurwitzProblem, labeled: bool = False,
-                   max_covers: int = DEFAULT_MAX_COVERS) -> Pullback:
+                   max_covers: int = DEFAULT_MAX_COVERS, strata: Iterable[BaseStratum] | None = None) -> Pullback:
     """Coefficients ``c(D_j, delta)`` for every codimension-one base stratum
-    (one per orbit of like branch points unless ``labeled``).
+    (one per orbit of like branch points unless ``labeled``); ``strata`` may
+    pass :func:`pullback_strata` (for instance wrapped to report progress).
 
     Raises
     ------
@@ -143,12 +158,15 @@ def build_pullback(problem: HurwitzProblem, labeled: bool = False,
     LimitError
         When more than ``max_covers`` covers would be listed.
     """
-    divisors = boundary_divisors(problem.genus)
+    divisors = boundary_divisors(problem.genus, problem.n_marks)
     hurwitz = problem_hurwitz(problem)
     budget = [max_covers]
-    rows = []
-    for base in select_strata(problem, 1, None, labeled):
-        if base.codim != 1:
-            continue
-        rows.append(pullback_row(base, iter_stratum(problem, base, budget), divisors, hurwitz))
-    return Pullback(problem, hurwitz, tuple(divisors), tuple(rows))
+    if strata is None:
+        strata = pullback_strata(problem, labeled)
+    rows = tuple(pullback_row(base, iter_stratum(problem, base, budget), divisors, hurwitz) for base in strata)
+    return Pullback(problem, hurwitz, tuple(divisors), rows)
+
+
+def pullback_strata(problem: HurwitzProblem, labeled: bool = False) -> list[BaseStratum]:
+    """The codimension-one base strata a pullback table has a row for."""
+    return [base for base in select_strata(problem, 1, None, labeled) if base.codim == 1]

@@ -24,6 +24,16 @@ def exit_status(error: CovertreeError) -> int:
     return 2
 
 
+#: command name -> module of covertree.cli defining it; a module is imported
+#: only when one of its commands runs (or when the full help lists them all), so
+#: ``covertree count ...`` does not pay for the enumeration machinery or sympy
+_COMMANDS = {
+    "count": "count", "strata": "strata", "catalogue": "catalogue", "pullback": "pullback",
+    "locus": "locus", "integral": "locus", "draw": "draw", "sweep": "sweep", "merge": "sweep",
+    "export": "sweep", "series": "series",
+}
+
+
 class CovertreeGroup(click.Group):
     """A click group that turns library errors into one-line messages."""
 
@@ -35,19 +45,29 @@ class CovertreeGroup(click.Group):
             sys.exit(exit_status(error))
 
 
-@click.group(cls=CovertreeGroup, context_settings={"help_option_names": ["-h", "--help"]})
+class LazyCommands(CovertreeGroup):
+    """The ``covertree`` group: each command's module is imported on first use."""
+
+    def list_commands(self, ctx: click.Context) -> list[str]:
+        return sorted(set(self.commands) | set(_COMMANDS))
+
+    def get_command(self, ctx: click.Context, name: str) -> click.Command | None:
+        if name not in self.commands and name in _COMMANDS:
+            _load(self, _COMMANDS[name])
+        return self.commands.get(name)
+
+
+def _load(group: click.Group, module_name: str) -> None:
+    # register every command of one covertree.cli module
+    import importlib
+
+    module = importlib.import_module(f"covertree.cli.{module_name}")
+    for command in getattr(module, "commands", None) or (module.command,):
+        group.add_command(command)
+
+
+@click.group(cls=LazyCommands, context_settings={"help_option_names": ["-h", "--help"]})
 @click.version_option(__version__, "-V", "--version", prog_name="covertree")
 def main() -> None:
     """Admissible covers over the boundary of the target's moduli space:
     Hurwitz numbers, boundary strata, catalogues of degenerate covers."""
-
-
-def _register() -> None:
-    from covertree.cli import catalogue, count, draw, locus, pullback, series, strata, sweep
-
-    for module in (count, strata, catalogue, pullback, locus, draw, sweep, series):
-        for command in getattr(module, "commands", None) or (module.command,):
-            main.add_command(command)
-
-
-_register()

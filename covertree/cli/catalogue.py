@@ -8,16 +8,17 @@ import click
 from rich.table import Table
 
 from covertree.catalogue.catalogue import (
-    DEFAULT_MAX_COVERS, Catalogue, StratumResult, build_catalogue, iter_stratum, problem_hurwitz,
-    select_strata,
+    DEFAULT_MAX_COVERS, Catalogue, StratumResult, build_catalogue, problem_hurwitz, select_strata, stratum_result,
 )
+from covertree.catalogue.grouping import CoverGroup, group_covers
 from covertree.cli.params import PROFILE, AtomicOutput, OneLineCommand, emit, format_option, output_option
 from covertree.catalogue.covers import divisor_name
 from covertree.catalogue.local_structure import local_structure
-from covertree.cli.render import each_with_progress, table_text
+from covertree.cli.render import fitted_table, table_text, watched
 from covertree.export.catalogue import catalogue_to_csv, catalogue_to_json, catalogue_to_latex, cover_to_jsonl
 from covertree.errors import InputError
 from covertree.export.rational import rational_str
+from covertree.export.words import count_noun, profiles_text
 from covertree.export.tallies import tallies_to_json
 from covertree.graphs.notation import parse_graph
 from covertree.hurwitz.problem import HurwitzProblem
@@ -33,13 +34,18 @@ def problem_options(func):
         click.option("--degree", "-d", "degree", type=int, required=True, help="Degree of the cover."),
         click.option("--profile", "-p", "profiles", type=PROFILE, multiple=True,
                      help="Profile over the next branch point, e.g. 3,1 (repeatable, in order)."),
+        click.option("--mark", "marks", multiple=True, metavar="J[:e[^c]]",
+                     help="Mark points of the source (legs 1..n, by branch point then index): J every "
+                          "ramified point over branch point J, J:e one point of index e, J:e^c c of them "
+                          "(repeatable)."),
     ]
     for option in reversed(options):
         func = option(func)
     return func
 
 
-@click.command("catalogue", cls=OneLineCommand)
+@click.command("catalogue", cls=OneLineCommand,
+               short_help="Every admissible cover over each boundary stratum, checked.")
 @problem_options
 @click.option("--codim", "-k", "codim", type=click.IntRange(min=0), default=1, show_default=True,
               help="List the base strata of codimension up to this (0 = smooth covers only).")
@@ -51,14 +57,18 @@ def problem_options(func):
 @click.option("--engine", "-e", "engine", type=click.Choice(["list", "types"]), default="list", show_default=True,
               help="list: every cover; types: per-stratum and per-source tallies from combinatorial types "
                    "(no covers listed, for large degree; table or json only).")
+@click.option("--rows", "rows", type=click.Choice(["grouped", "all"]), default=None,
+              help="grouped: covers whose rows agree in every printed column as one row with their count "
+                   "and summed weight; all: one row per cover.  [default: grouped for table and latex, "
+                   "all for json, jsonl, csv, tikz]")
 @format_option(["table", "json", "jsonl", "csv", "latex", "tikz"])
 @output_option
-def command(genus, target_genus, degree, profiles, codim, stratum, labeled, max_covers, standalone, engine,
-            fmt, output):
+def command(genus, target_genus, degree, profiles, marks, codim, stratum, labeled, max_covers, standalone, engine,
+            rows, fmt, output):
     """List every admissible cover over a fixed curve of each boundary stratum of
     the target: source and stable source, |Aut|, multiplicity, weight; check
     that each stratum's weights add up to the Hurwitz number."""
-    problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles)
+    problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles, marks=marks)
     graph = parse_graph(stratum) if stratum is not None else None
     if engine == "types":
         if fmt not in ("table", "json"):
@@ -67,42 +77,59 @@ def command(genus, target_genus, degree, profiles, codim, stratum, labeled, max_
         emit(tallies_to_json(tallies) if fmt == "json" else tallies_table(tallies), output)
         _report([(s.base.graph.notation, s.total_weight, s.hurwitz_number) for s in tallies.failures])
         return
+    grouped = _grouped(rows, fmt)
+    strata = select_strata(problem, codim, graph, labeled)
+    watch = watched(strata, len(strata), "strata", lambda b: b.graph.notation,
+                    hint=TYPES_HINT if fmt in ("table", "json") else None)
     if fmt == "jsonl":
-        failures = _stream(problem, codim, graph, labeled, max_covers, output)
+        failures = _stream(problem, watch, max_covers, output)
     else:
-        cat = build_catalogue(problem, codim, graph, labeled, max_covers)
-        emit(_render(cat, fmt, standalone), output)
+        cat = build_catalogue(problem, codim, graph, labeled, max_covers, strata=watch)
+        emit(_render(cat, fmt, standalone, grouped), output)
         failures = [(s.base.graph.notation, s.total_weight, s.hurwitz_number) for s in cat.failures]
     _report(failures)
 
 
-def _render(cat: Catalogue, fmt: str, standalone: bool) -> str:
+#: Said once on stderr when a list-engine run is slow.
+TYPES_HINT = ("this takes a while with --engine list; --engine types gives the same numbers "
+              "(without the cover rows) much faster")
+
+
+def _grouped(rows: str | None, fmt: str) -> bool:
+    """Whether identical rows are grouped: ``--rows``, else by format."""
+    if rows is not None:
+        if rows == "grouped" and fmt in ("csv", "jsonl", "tikz"):
+            raise InputError(f"--rows grouped is for table, latex and json, not --format {fmt}")
+        return rows == "grouped"
+    return fmt in ("table", "latex")
+
+
+def _render(cat: Catalogue, fmt: str, standalone: bool, grouped: bool) -> str:
     if fmt == "json":
-        return catalogue_to_json(cat)
+        return catalogue_to_json(cat, grouped)
     if fmt == "csv":
         return catalogue_to_csv(cat)
     if fmt == "latex":
-        return catalogue_to_latex(cat, standalone)
+        return catalogue_to_latex(cat, standalone, grouped)
     if fmt == "tikz":
         from covertree.export.tikz import catalogue_tikz
 
         return catalogue_tikz(cat, standalone)
-    return catalogue_table(cat)
+    return catalogue_table(cat, grouped)
 
 
-def _stream(problem, codim, graph, labeled, max_covers, output) -> list:
-    """JSON lines, one per cover, written as found; returns the failed strata."""
+def _stream(problem, strata, max_covers, output) -> list:
+    """JSON lines, one per cover, in the order of the other formats, written
+    stratum by stratum; returns the failed strata."""
     hurwitz = problem_hurwitz(problem)
-    strata = select_strata(problem, codim, graph, labeled)
     budget, failures = [max_covers], []
     with AtomicOutput(output) as out:
-        for base in each_with_progress(strata, len(strata), "strata", lambda b: b.graph.notation):
-            total = 0
-            for cover in iter_stratum(problem, base, budget):
-                total += cover.weight
-                out.write(cover_to_jsonl(base, cover) + "\n")
-            if total != hurwitz:
-                failures.append((base.graph.notation, total, hurwitz))
+        for number, base in enumerate(strata, start=1):
+            result = stratum_result(problem, base, budget, hurwitz)
+            for k, cover in enumerate(result.covers, start=1):
+                out.write(cover_to_jsonl(base, cover, number, k) + "\n")
+            if not result.identity_holds:
+                failures.append((base.graph.notation, result.total_weight, hurwitz))
     return failures
 
 
@@ -118,24 +145,41 @@ def _report(failures: list) -> None:
         sys.exit(1)
 
 
-def _stratum_table(s: StratumResult) -> Table:
+def _stratum_table(number: int, s: StratumResult, grouped: bool) -> Table:
     verdict = "holds" if s.identity_holds else "FAILS"
-    table = Table(
-        title=f"base {s.base.graph.notation}  (codim {s.base.graph.codim}, orbit {s.base.orbit_size})",
-        caption=f"{len(s.covers)} covers, total weight {rational_str(s.total_weight)}, "
+    columns = [("#", "right", True), ("covers", "right", True), ("over nodes", "left", True),
+               ("source", "left", False), ("stable source", "left", True), ("name", "left", False),
+               ("|Aut|", "right", True), ("mult", "right", True), ("weight", "right", True),
+               ("L", "right", False), ("br", "right", False), ("orders", "left", False)]
+    if not grouped:
+        del columns[1]
+    rows = [_cover_cells(g, grouped) for g in _groups(s, grouped)]
+    shown = f"{count_noun(len(rows), 'row')} for " if grouped else ""
+    return fitted_table(
+        columns, rows,
+        title=f"stratum {number}: base {s.base.graph.notation}  (codim {s.base.graph.codim}, "
+              f"orbit {s.base.orbit_size})",
+        caption=f"{shown}{count_noun(len(s.covers), 'cover')}, total weight {rational_str(s.total_weight)}, "
                 f"Hurwitz number {rational_str(s.hurwitz_number)}: identity {verdict}",
     )
-    for name, justify in [("#", "right"), ("over nodes", "left"), ("source", "left"),
-                          ("stable source", "left"), ("name", "left"), ("|Aut|", "right"),
-                          ("mult", "right"), ("weight", "right"), ("L", "right"), ("br", "right"),
-                          ("orders", "left")]:
-        table.add_column(name, justify=justify, overflow="fold")
-    for i, c in enumerate(s.covers, start=1):
-        profiles = "; ".join(",".join(map(str, p)) for p in c.edge_profiles) or "-"
-        table.add_row(str(i), profiles, c.source.notation, c.stable_source.notation,
-                      c.stable_source_name or "", str(c.automorphisms), str(c.multiplicity),
-                      rational_str(c.weight), *_local_cells(c))
-    return table
+
+
+def _groups(s: StratumResult, grouped: bool) -> list[CoverGroup]:
+    if grouped:
+        return group_covers(s, key=lambda c: _printed(c))
+    return [CoverGroup(c, (k,), c.weight) for k, c in enumerate(s.covers, start=1)]
+
+
+def _printed(c) -> tuple:
+    """The cells of a cover's row apart from its number and count."""
+    return (profiles_text(c.edge_profiles), c.source.notation, c.stable_source.notation,
+            c.stable_source_name or "", str(c.automorphisms), str(c.multiplicity), *_local_cells(c))
+
+
+def _cover_cells(g: CoverGroup, grouped: bool) -> tuple:
+    cells = _printed(g.cover)
+    head = (g.number_range, str(g.count)) if grouped else (g.number_range,)
+    return (*head, *cells[:6], rational_str(g.total_weight), *cells[6:])
 
 
 def _local_cells(cover) -> tuple[str, str, str]:
@@ -149,22 +193,22 @@ def _local_cells(cover) -> tuple[str, str, str]:
 
 
 def _landing_table(cat: Catalogue) -> Table:
-    table = Table(title="where the boundary lands: weight per stable source and base stratum")
-    for name in ("base", "stable source", "name", "weight"):
-        table.add_column(name, justify="right" if name == "weight" else "left", overflow="fold")
-    for s in cat.strata:
-        for graph, weight in s.by_source():
-            table.add_row(s.base.graph.notation, graph.notation, divisor_name(graph) or "", rational_str(weight))
-    return table
+    columns = [("stratum", "right", True), ("base", "left", True), ("stable source", "left", True),
+               ("name", "left", False), ("weight", "right", True)]
+    rows = [(str(k), s.base.graph.notation, graph.notation, divisor_name(graph) or "", rational_str(weight))
+            for k, s in enumerate(cat.strata, start=1) for graph, weight in s.by_source()]
+    return fitted_table(columns, rows, title="where the boundary lands: weight per stable source and base stratum")
 
 
-def catalogue_table(cat: Catalogue) -> str:
-    """The table rendering: one table per stratum, then the landing summary."""
+def catalogue_table(cat: Catalogue, grouped: bool = True) -> str:
+    """The table rendering: one table per stratum (numbered; rows numbered
+    within it, as ``draw --pick`` addresses them), then the landing summary."""
     p = cat.problem
     head = Table(title=f"admissible covers: genus {p.genus} over genus {p.target_genus}, degree {p.degree}, "
-                       f"profiles {' '.join('(' + str(m) + ')' for m in p.profiles)}; Hurwitz number "
+                       f"profiles {profiles_text(p.profiles)}; Hurwitz number "
                        f"{rational_str(cat.hurwitz_number)}", show_header=False, box=None)
-    return table_text(head, *(_stratum_table(s) for s in cat.strata), _landing_table(cat), width=100)
+    tables = (_stratum_table(k, s, grouped) for k, s in enumerate(cat.strata, start=1))
+    return table_text(head, *tables, _landing_table(cat))
 
 
 def tallies_table(tallies: TallyCatalogue) -> str:
@@ -172,12 +216,13 @@ def tallies_table(tallies: TallyCatalogue) -> str:
     then the landing summary (weight per stable source)."""
     p = tallies.problem
     head = Table(title=f"tallies from types: genus {p.genus} over genus {p.target_genus}, degree {p.degree}, "
-                       f"profiles {' '.join('(' + str(m) + ')' for m in p.profiles)}; Hurwitz number "
+                       f"profiles {profiles_text(p.profiles)}; Hurwitz number "
                        f"{rational_str(tallies.hurwitz_number)}", show_header=False, box=None)
-    table = Table(title="total weight per base stratum")
-    for name in ("base", "codim", "orbit", "total weight", "Hurwitz number", "identity"):
-        table.add_column(name, justify="left" if name in ("base", "identity") else "right", overflow="fold")
-    for s in tallies.strata:
-        table.add_row(s.base.graph.notation, str(s.base.codim), str(s.base.orbit_size), rational_str(s.total_weight),
-                      rational_str(s.hurwitz_number), "holds" if s.identity_holds else "FAILS")
-    return table_text(head, table, _landing_table(tallies), width=100)
+    columns = [("stratum", "right", True), ("base", "left", True), ("codim", "right", False),
+               ("orbit", "right", False), ("total weight", "right", True), ("Hurwitz number", "right", True),
+               ("identity", "left", True)]
+    rows = [(str(k), s.base.graph.notation, str(s.base.codim), str(s.base.orbit_size), rational_str(s.total_weight),
+             rational_str(s.hurwitz_number), "holds" if s.identity_holds else "FAILS")
+            for k, s in enumerate(tallies.strata, start=1)]
+    table = fitted_table(columns, rows, title="total weight per base stratum")
+    return table_text(head, table, _landing_table(tallies))

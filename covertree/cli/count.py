@@ -5,16 +5,16 @@ from __future__ import annotations
 import io
 
 import click
-from rich.console import Console
-from rich.table import Table
 
 from covertree.cli.params import PROFILE, OneLineCommand, emit, format_option, output_option
 from covertree.export.counts import COUNT_COLUMNS, count_row, counts_csv, counts_json, counts_latex
 from covertree.hurwitz.numbers import hurwitz_numbers
 from covertree.hurwitz.problem import HurwitzProblem
+from covertree.export.words import profiles_text
 
 
-@click.command("count", cls=OneLineCommand)
+@click.command("count", cls=OneLineCommand,
+               short_help="Hurwitz numbers (connected and not) of a problem.")
 @click.option("--genus", "-g", "genus", type=int, default=None,
               help="Genus g of the connected source; missing branch points are simple "
                    "[default: the profiles are complete and g follows].")
@@ -43,10 +43,14 @@ def command(genus, target_genus, degree, profiles, fmt, output) -> None:
 
 
 def _table(problem, connected, disconnected) -> str:
+    # rich only for the table format (a fast start for the other formats)
+    from rich.console import Console
+    from rich.table import Table
     table = Table(title="Hurwitz numbers (labelled branch points, weight 1/|Aut|)")
     for name in COUNT_COLUMNS:
         table.add_column(name.replace("_", " "), justify="left" if name == "profiles" else "right")
-    row = count_row(problem, connected, disconnected)
+    row = list(count_row(problem, connected, disconnected))
+    row[COUNT_COLUMNS.index("profiles")] = profiles_text(problem.profiles)
     table.add_row(*map(str, row))
     buffer = io.StringIO()
     width = max(80, 60 + sum(len(str(cell)) for cell in row))

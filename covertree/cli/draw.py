@@ -6,34 +6,47 @@ import json
 
 import click
 
-from covertree.cli.params import OneLineCommand, check_destination
+from covertree.cli.params import PICK, OneLineCommand, check_destination
 from covertree.errors import GraphError, InputError
 from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
-from covertree.graphs.notation import parse_graph
+from covertree.graphs.notation import graph_parts, parse_graph
+from covertree.export.words import count_noun
 
 
-@click.command("draw", cls=OneLineCommand)
+@click.command("draw", cls=OneLineCommand,
+               short_help="Picture of a stable graph or of one cover of a catalogue.")
 @click.argument("notation", required=False)
 @click.option("--cover", "-c", "cover_file", type=click.File("r"), default=None,
               help="Draw a cover from a JSON-lines catalogue (covertree catalogue -f jsonl); '-' reads stdin.")
-@click.option("--line", "-n", "line", type=click.IntRange(min=1), default=1, show_default=True,
-              help="With --cover: which line (cover) of the file.")
+@click.option("--line", "-n", "line", type=click.IntRange(min=1), default=None,
+              help="With --cover: which line of the file (default 1).")
+@click.option("--pick", "pick", type=PICK, default=None, metavar="S:K",
+              help="With --cover: cover K of stratum S, numbered as in the catalogue's table "
+                   "(the '#' column of the table titled 'stratum S').")
 @click.option("--output", "-o", "output", type=click.Path(dir_okay=False, writable=True), required=True,
-              callback=lambda ctx, param, value: check_destination(value, param, ctx),
-              help="Image file to write (atomically), FILE.svg or FILE.png.")
-def command(notation, cover_file, line, output):
+              help="Image file to write, FILE.svg or FILE.png.")
+@click.option("--dpi", "dpi", type=click.IntRange(50, 1200), default=300, show_default=True,
+              help="Resolution of a PNG in dots per inch (SVG: sizes only).")
+def command(notation, cover_file, line, pick, output, dpi):
     """Draw the graph NOTATION (e.g. 'g0, g1 | 0-0, 0-1^2'), or with --cover one
-    cover of a catalogue: its source (nodes labelled by ramification index), an
-    arrow, and its base (nodes labelled by profile). Needs the extra
-    covertree[draw] (matplotlib)."""
+    cover of a catalogue: its source above (each component over its image, nodes
+    labelled by ramification index), an arrow down, and its base (nodes
+    labelled by profile). A graph keeps the vertex order and the title of the
+    notation as written. Needs the extra covertree[draw] (matplotlib)."""
     from covertree.export.draw import draw_graph, draw_pair
+    from covertree.export.picture import vertex_images
 
     if (notation is None) == (cover_file is None):
         raise InputError("give either a graph NOTATION or --cover FILE (one of the two)")
     if notation is not None:
-        draw_graph(parse_graph(notation), output)
+        parts = graph_parts(notation)
+        genera, legs, edges = parts
+        draw_graph(parse_graph(notation), output, title=" ".join(notation.split()), dpi=dpi,
+                   parts=(genera, edges, legs))
         return
-    record = _record(cover_file, line)
+    if line is not None and pick is not None:
+        raise InputError("give --line or --pick, not both")
+    record = _picked(cover_file, pick) if pick is not None else _record(cover_file, line or 1)
     try:
         base = StableCurveGraph.from_dict(record["base"])
         source = _graph(record["source"])
@@ -45,7 +58,13 @@ def command(notation, cover_file, line, output):
     base_labels = [",".join(map(str, p)) for p in profiles]
     degree = sum(profiles[0]) if profiles else None
     title = f"{source.notation}  ->  {base.notation}"
-    draw_pair(source, source_labels, base, base_labels, degree, output, title)
+    over = None
+    if indices and degree is not None:
+        over = vertex_images(source.nodes, source.n_vertices, indices, base.nodes, base.n_vertices, profiles, degree)
+    elif not base.nodes:
+        over = [0] * source.n_vertices
+    draw_pair((source.vertex_genera, source.nodes), source_labels, base, base_labels, degree, output, title,
+              over=over, dpi=dpi)
 
 
 def _graph(data) -> CurveGraph:
@@ -65,4 +84,27 @@ def _record(handle, line: int) -> dict:
             if not isinstance(record, dict):
                 raise InputError(f"line {line} of the cover file is not a JSON object")
             return record
-    raise InputError(f"the cover file has fewer than {line} line(s)")
+    raise InputError(f"line {line} asked for, but the cover file has only {count_noun(number, 'line')}"
+                     if line > 1 else "the cover file is empty")
+
+
+def _picked(handle, pick: tuple[int, int]) -> dict:
+    """The record of cover ``K`` of stratum ``S`` (keys written by ``-f jsonl``)."""
+    stratum, cover = pick
+    strata, covers = 0, 0
+    for number, text in enumerate(handle, start=1):
+        try:
+            record = json.loads(text)
+        except json.JSONDecodeError as error:
+            raise InputError(f"line {number} of the cover file is not JSON: {error}") from None
+        if not isinstance(record, dict) or "stratum_number" not in record:
+            raise InputError(f"line {number} of the cover file has no stratum_number: --pick needs the "
+                             "output of covertree catalogue -f jsonl")
+        strata = max(strata, record["stratum_number"])
+        if record["stratum_number"] == stratum:
+            covers += 1
+            if record["cover_number"] == cover:
+                return record
+    if covers:
+        raise InputError(f"no cover {stratum}:{cover}: stratum {stratum} has {count_noun(covers, 'cover')}")
+    raise InputError(f"no stratum {stratum} in the cover file: it has covers of strata 1..{strata}")

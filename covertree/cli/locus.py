@@ -3,6 +3,7 @@ divisorial Hurwitz locus in ``Mbar_G`` and integrals over the cover space."""
 
 from __future__ import annotations
 
+import re
 from fractions import Fraction
 
 import click
@@ -23,7 +24,7 @@ ENGINE = click.option("--engine", "-e", "engine", type=click.Choice(["types", "l
 def parse_family(text: str) -> dict[str, Fraction]:
     """``"delta_0=10,delta_1=0"`` -> degrees; one-line errors naming the bad item."""
     degrees: dict[str, Fraction] = {}
-    for item in filter(None, (s.strip() for s in text.split(","))):
+    for item in filter(None, (s.strip() for s in re.split(r",(?![^{]*\})", text))):
         name, sep, value = item.partition("=")
         try:
             if not sep or len(value) > 60:
@@ -34,23 +35,26 @@ def parse_family(text: str) -> dict[str, Fraction]:
     return degrees
 
 
-@click.command("locus", cls=OneLineCommand)
+@click.command("locus", cls=OneLineCommand,
+               short_help="Class of the Hurwitz locus in Mbar_g (lambda, delta_j).")
 @problem_options
 @click.option("--family", "family", default=None,
-              help='Degrees of lambda and the delta_i on a one-parameter family, e.g. "delta_0=10,delta_1=0": '
-                   "print the locus' intersection number with it.")
+              help='Degrees of lambda and the delta_i (with --mark also psi_k and the delta_i_{...}) on a '
+                   'one-parameter family, e.g. "delta_0=10,delta_1=0": print the locus\' intersection number with it.')
 @ENGINE
 @format_option(["table", "json", "latex"])
 @output_option
-def locus_command(genus, target_genus, degree, profiles, family, engine, fmt, output):
+def locus_command(genus, target_genus, degree, profiles, marks, family, engine, fmt, output):
     """The class of the Hurwitz locus (the pushforward of the cover space to
     Mbar_G, when it is a divisor) in lambda, delta_0, ..., solved from the
     integrals of every monomial of degree 3G-4 in lambda and the delta_i
     (more equations than unknowns; an inconsistent system exits 1). Printed
-    for labelled branch points and divided by the symmetry of the profiles."""
+    for labelled branch points and divided by the symmetry of the profiles.
+    With --mark the class lives on Mbar_{G,n}, in lambda, psi_k and its
+    boundary divisors, and the symmetry fixes the marked branch points."""
     from covertree.locus.divisor import family_number, locus_class
 
-    problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles)
+    problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles, marks=marks)
     degrees = parse_family(family) if family is not None else None
     result = locus_class(problem, engine)
     numbers = None
@@ -66,7 +70,8 @@ def locus_command(genus, target_genus, degree, profiles, family, engine, fmt, ou
 
 def _locus_table(result, numbers) -> str:
     p = result.problem
-    table = Table(title=f"class of the locus in Mbar_{p.genus}: degree {p.degree} covers of genus {p.target_genus}, "
+    space = f"Mbar_{{{p.genus},{p.n_marks}}}" if p.marks else f"Mbar_{p.genus}"
+    table = Table(title=f"class of the locus in {space}: degree {p.degree} covers of genus {p.target_genus}, "
                         f"cover space of dimension {result.dimension}",
                   caption=f"{len(result.tests)} test monomials, system "
                           f"{'consistent' if result.consistent else 'INCONSISTENT'}")
@@ -80,21 +85,24 @@ def _locus_table(result, numbers) -> str:
     return table_text(table)
 
 
-@click.command("integral", cls=OneLineCommand)
+@click.command("integral", cls=OneLineCommand,
+               short_help="Integral over the space of admissible covers.")
 @problem_options
-@click.option("--source", "source", default="", help='Source classes: lambda, delta_i, e.g. "lambda delta_0^2".')
+@click.option("--source", "source", default="",
+              help='Source classes: lambda, delta_i, e.g. "lambda delta_0^2"; with --mark also psi_k (k a leg) '
+                   'and the divisors delta_i_{a,b,...} of Mbar_{G,n}.')
 @click.option("--target", "target", default="", help='Target classes: psi_j (j a branch point), kappa.')
 @ENGINE
 @format_option(["table", "json"])
 @output_option
-def integral_command(genus, target_genus, degree, profiles, source, target, engine, fmt, output):
+def integral_command(genus, target_genus, degree, profiles, marks, source, target, engine, fmt, output):
     """The integral over the space of admissible covers (labelled branch
     points, covers weighted 1/|Aut|) of src^*(source) br^*(target); the
     degrees must add up to the dimension 3H - 3 + b."""
     from covertree.locus.integrals import cover_space_integral
     from covertree.locus.monomial import Monomial
 
-    problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles)
+    problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles, marks=marks)
     src = _monomial(source, "source", "--source")
     tgt = _monomial(target, "target", "--target")
     result = cover_space_integral(problem, src, tgt, engine)

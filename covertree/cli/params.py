@@ -162,7 +162,23 @@ def _signals_interrupt() -> Iterator[None]:
             signal.signal(sig, handler)
 
 
+class PickType(click.ParamType):
+    """``S:K``: cover ``K`` of stratum ``S`` (both 1-based, as tables number them)."""
+
+    name = "pick"
+
+    def convert(self, value, param, ctx):
+        if isinstance(value, tuple):
+            return value
+        m = re.fullmatch(r"\s*([0-9]{1,9})\s*:\s*([0-9]{1,9})\s*", str(value), re.ASCII)
+        if not m or min(int(m.group(1)), int(m.group(2))) < 1:
+            self.fail(f"{quote_window(str(value))} is not S:K with stratum S >= 1 and cover K >= 1 (e.g. 2:5)",
+                      param, ctx)
+        return int(m.group(1)), int(m.group(2))
+
+
 PROFILE = ProfileType()
+PICK = PickType()
 INT_RANGE = IntRangeList()
 
 

@@ -25,7 +25,8 @@ def _fraction(text: str) -> Fraction:
         raise InputError(f"--constant {text!r} is not a rational number p/q") from None
 
 
-@click.command("series", cls=OneLineCommand)
+@click.command("series", cls=OneLineCommand,
+               short_help="Generating series in the degree, as quasimodular forms.")
 @click.option("--genus", "-g", "genus", type=int, default=None,
               help="Genus of the connected source in every degree; missing branch points are simple "
                    "[default: from Riemann-Hurwitz].")
@@ -85,7 +86,7 @@ def series_table(s: DegreeSeries) -> str:
     """The table rendering: one row per degree, then the verdict."""
     fam = s.family
     genus = "from Riemann-Hurwitz" if fam.genus is None else str(fam.genus)
-    shapes = " ".join(f"({x.text})" for x in fam.shapes) or "none"
+    shapes = "; ".join(x.text for x in fam.shapes) or "none"
     table = Table(title=f"{s.quantity.label}: genus {genus} over genus {fam.target_genus}, shapes {shapes}, "
                         f"degrees 1..{s.max_degree}")
     for name in SERIES_COLUMNS:
@@ -93,4 +94,4 @@ def series_table(s: DegreeSeries) -> str:
                          justify="left" if name == "profiles" else "right", overflow="fold")
     for row in series_rows(s):
         table.add_row(*map(str, row))
-    return table_text(table, width=110) + series_summary(s) + "\n"
+    return table_text(table) + series_summary(s) + "\n"

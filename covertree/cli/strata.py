@@ -5,16 +5,14 @@ from __future__ import annotations
 import io
 
 import click
-from rich.console import Console
-from rich.table import Table
-from rich.text import Text
 
 from covertree.cli.params import OneLineCommand, emit, format_option, output_option
 from covertree.export.graphs import strata_csv, strata_json, strata_latex, strata_rows
 from covertree.graphs.enumerate import stable_graphs
 
 
-@click.command("strata", cls=OneLineCommand)
+@click.command("strata", cls=OneLineCommand,
+               short_help="Stable graphs (boundary strata) of Mbar_{h,n}.")
 @click.option(
     "--target-genus", "-t", "genus", type=int, required=True, help="Genus h of the target."
 )
@@ -58,6 +56,10 @@ def command(genus: int, points: int, codim: int | None, standalone: bool, fmt: s
 
 
 def _table(genus: int, points: int, codim: int | None, graphs) -> str:
+    # rich only for the table format (a fast start for the other formats)
+    from rich.console import Console
+    from rich.table import Table
+    from rich.text import Text
     limit = "" if codim is None or codim >= 3 * genus - 3 + points else f" of codim <= {codim}"
     table = Table(title=f"Strata of Mbar_{{{genus},{points}}}{limit}: {len(graphs)}")
     for name in ("#", "codim", "|V|", "|Aut|"):

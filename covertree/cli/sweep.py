@@ -16,10 +16,11 @@ from rich.text import Text
 
 from covertree.cli.params import INT_RANGE, PROFILE, OneLineCommand, emit, format_option, output_option, \
     refuse_output_onto_store
-from covertree.cli.render import table_text
+from covertree.cli.render import fitted_table, table_text
 from covertree.errors import InputError
 from covertree.export.rational import rational_str
-from covertree.export.sweep import count_text, landing_columns, summary_line, sweep_from_json, sweep_to_csv, sweep_to_json, sweep_to_latex
+from covertree.export.words import profiles_text
+from covertree.export.sweep import count_text, landing_columns, landing_header, summary_line, sweep_from_json, sweep_to_csv, sweep_to_json, sweep_to_latex
 from covertree.sweep.report import SweepReport, merge_reports, shard_report, store_report, sweep_report
 from covertree.sweep.runner import ProcessBackend, RunOutcome, SerialBackend, run_tasks
 from covertree.sweep.store import ResultStore
@@ -85,17 +86,42 @@ def _progress(total: int, enabled: bool) -> Iterator:
 
 
 def _run(plan: Plan, tasks, backend, store: str | None, show: bool) -> RunOutcome:
+    done = [0, 0]  # tasks finished, of which found in the store
     with backend:
         opened = ResultStore(store) if store is not None else None
         try:
             with _progress(len(tasks), show and sys.stderr.isatty()) as advance:
-                return run_tasks(tasks, backend, opened, advance)
+                def counted(task, was_stored):
+                    done[0] += 1
+                    done[1] += was_stored
+                    advance(task, was_stored)
+                return run_tasks(tasks, backend, opened, counted)
+        except KeyboardInterrupt:
+            click.echo(interrupted_message(len(tasks), done[0], done[1], store), err=True)
+            sys.exit(130)
         finally:
             if opened is not None:
                 opened.close()
 
 
-@click.command("sweep", cls=OneLineCommand)
+def interrupted_message(total: int, finished: int, from_store: int, store: str | None) -> str:
+    """What an interrupted sweep kept, and how to go on.
+
+    >>> interrupted_message(10, 4, 1, "runs.db")
+    "covertree: sweep interrupted: 4 of 10 tasks are safely in the store 'runs.db' (3 computed now, 1 found there); run the same command with --store 'runs.db' to compute only the other 6"
+    >>> interrupted_message(10, 4, 0, None)
+    'covertree: sweep interrupted after 4 of 10 tasks; without --store nothing is kept (give --store FILE to make a sweep resumable)'
+    """
+    if store is None:
+        return (f"covertree: sweep interrupted after {finished} of {total} tasks; without --store nothing is "
+                "kept (give --store FILE to make a sweep resumable)")
+    return (f"covertree: sweep interrupted: {finished} of {total} tasks are safely in the store {store!r} "
+            f"({finished - from_store} computed now, {from_store} found there); run the same command with "
+            f"--store {store!r} to compute only the other {total - finished}")
+
+
+@click.command("sweep", cls=OneLineCommand,
+               short_help="Run many problems into a resumable store.")
 @click.option("--genus", "-g", "genus", type=INT_RANGE, default=None,
               help="Source genera: 2, 2..4 or 2,3,5 (default: derived from complete profiles).")
 @click.option("--target-genus", "-t", "target_genus", type=INT_RANGE, required=True,
@@ -123,7 +149,9 @@ def sweep(genus, target_genus, degree, profiles, codim, labeled, engine, fmt, jo
     """Run every Hurwitz problem of the ranges over every base stratum of
     codimension <= K: one row per (problem, stratum) with the number of
     covers, total weight, Hurwitz number, identity verdict and the weight
-    landing on each boundary divisor delta_i of the source space."""
+    whose stable source lands in each boundary divisor delta_i of the source
+    space (columns "lands in delta_i": not the pullback coefficient
+    c(D, delta_i) of the pullback command)."""
     _check_store(store, output)
     spec = _spec(genus, target_genus, degree, profiles, codim, labeled, engine)
     piece = parse_shard(shard) if shard is not None else None
@@ -139,7 +167,8 @@ def sweep(genus, target_genus, degree, profiles, codim, labeled, engine, fmt, jo
     _report_failures(report)
 
 
-@click.command("merge", cls=OneLineCommand)
+@click.command("merge", cls=OneLineCommand,
+               short_help="Combine the JSON outputs of shards into one.")
 @click.argument("files", nargs=-1, required=True, type=click.Path(exists=True, dir_okay=False))
 @format_option(FORMATS)
 @quiet_option
@@ -158,7 +187,8 @@ def merge(files, fmt, quiet, output):
     _report_failures(report)
 
 
-@click.command("export", cls=OneLineCommand)
+@click.command("export", cls=OneLineCommand,
+               short_help="Print every result in a store, nothing recomputed.")
 @click.option("--store", "store", type=click.Path(dir_okay=False), required=True, help="The SQLite results store.")
 @format_option(FORMATS)
 @quiet_option
@@ -204,18 +234,19 @@ def _report_failures(report: SweepReport) -> None:
 def sweep_table(report: SweepReport) -> str:
     """The table rendering: one line per (problem, stratum), then skipped problems."""
     columns = landing_columns(report)
-    table = Table(title="sweep: weight per base stratum and where it lands", caption=summary_line(report))
-    for name in ("g", "h", "d", "profiles", "base", "orbit", "covers", "total", "H", "identity", *columns):
-        table.add_column(name, justify="left" if name in ("profiles", "base", "identity") else "right",
-                         overflow="fold")
+    heads = [(name, "left" if name in ("profiles", "base", "identity") else "right", name != "orbit")
+             for name in ("g", "h", "d", "profiles", "base", "orbit", "covers", "total", "H", "identity")]
+    heads += [(landing_header(c), "right", True) for c in columns]
+    rows = []
     for row in report.rows:
         p, landing = row.problem, dict(row.landing)
-        table.add_row(str(p.genus), str(p.target_genus), str(p.degree),
-                      " ".join(f"({mu})" for mu in p.profiles) or "-", row.stratum, str(row.orbit_size),
-                      count_text(row.n_covers), rational_str(row.total_weight), rational_str(row.hurwitz_number),
-                      "holds" if row.identity_holds else "FAILS",
-                      *(rational_str(landing[c]) if c in landing else "" for c in columns))
-    tables = [table]
+        rows.append((str(p.genus), str(p.target_genus), str(p.degree), profiles_text(p.profiles), row.stratum,
+                     str(row.orbit_size), count_text(row.n_covers), rational_str(row.total_weight),
+                     rational_str(row.hurwitz_number), "holds" if row.identity_holds else "FAILS",
+                     *(rational_str(landing[c]) if c in landing else "" for c in columns)))
+    tables = [fitted_table(heads, rows, title="sweep: weight per base stratum and where it lands "
+                                              "(lands in delta_i: the weight whose stable source is in delta_i)",
+                           caption=summary_line(report))]
     if report.skipped:
         skipped = Table(title="skipped problems")
         for name in ("g", "h", "d", "reason"):
@@ -223,4 +254,4 @@ def sweep_table(report: SweepReport) -> str:
         for s in report.skipped:
             skipped.add_row("-" if s.genus is None else str(s.genus), str(s.target_genus), str(s.degree), s.reason)
         tables.append(skipped)
-    return table_text(*tables, width=140)
+    return table_text(*tables)

@@ -36,6 +36,15 @@ stabilisation merged into it) and its type (``delta_0`` non-separating,
 ``stable_node_types`` (per stable node, joined by ``;``; empty off
 codimension one).
 
+Grouped form (``grouped=True``, the command's ``--rows grouped``): covers
+with identical rows (:mod:`covertree.catalogue.grouping`) are listed once.
+Each stratum then has ``"grouped": true`` and ``"n_groups"``, and each entry
+of ``"covers"`` is the first cover of its group with three added keys:
+``"count"`` (covers in the group), ``"cover_numbers"`` (their 1-based
+positions in the full list) and ``"group_weight"`` (their summed weight).
+Every other key keeps its meaning; ``"n_covers"`` still counts all covers.
+Without ``grouped`` (the default) every cover is listed.
+
 ``GRAPH`` is :meth:`covertree.graphs.curve_graph.CurveGraph.to_dict`; base legs
 are the branch points ``1..b`` in the order of ``profiles``; ``edge_profiles``
 follow the base's ``edges`` order.  Exact rationals are strings ``"p/q"``.
@@ -56,14 +65,17 @@ from __future__ import annotations
 
 import csv
 import io
-import json
+from fractions import Fraction
 
 from covertree.catalogue.catalogue import Catalogue, StratumResult
 from covertree.catalogue.covers import Cover
+from covertree.catalogue.grouping import group_covers
 from covertree.catalogue.local_structure import LocalStructure, local_structure
 from covertree.export.graphs import notation_math
-from covertree.export.latex import latex_document
+from covertree.export.latex import latex_document, sized_longtable, wrapped_cell
 from covertree.export.rational import latex_rational, rational_str
+from covertree.export.jsontext import json_text, json_line
+from covertree.export.words import profiles_csv, profiles_latex
 
 #: Column names of the CSV rendering (stable: scripts rely on them).
 COVER_COLUMNS = (
@@ -116,13 +128,21 @@ def cover_to_dict(cover: Cover) -> dict:
     }
 
 
-def stratum_to_dict(result: StratumResult) -> dict:
-    """One entry of ``"strata"``."""
+def stratum_to_dict(result: StratumResult, grouped: bool = False) -> dict:
+    """One entry of ``"strata"`` (grouped form: see the module docstring)."""
+    extra = {}
+    if grouped:
+        groups = group_covers(result)
+        covers = [{**cover_to_dict(g.cover), "count": g.count, "cover_numbers": list(g.numbers),
+                   "group_weight": rational_str(g.total_weight)} for g in groups]
+        extra = {"grouped": True, "n_groups": len(groups)}
+    else:
+        covers = [cover_to_dict(c) for c in result.covers]
     return {
         "base": result.base.graph.to_dict(),
         "codim": result.base.graph.codim,
         "orbit_size": result.base.orbit_size,
-        "covers": [cover_to_dict(c) for c in result.covers],
+        "covers": covers,
         "total_weight": rational_str(result.total_weight),
         "by_source": [
             {"stable_source": g.to_dict(), "weight": rational_str(w)} for g, w in result.by_source()
@@ -130,6 +150,7 @@ def stratum_to_dict(result: StratumResult) -> dict:
         "hurwitz_number": rational_str(result.hurwitz_number),
         "identity": result.identity_holds,
         "n_covers": len(result.covers),
+        **extra,
     }
 
 
@@ -138,29 +159,32 @@ def problem_to_dict(problem, codim: int) -> dict:
     return {**problem.to_dict(), "codim": codim}
 
 
-def catalogue_to_dict(cat: Catalogue) -> dict:
+def catalogue_to_dict(cat: Catalogue, grouped: bool = False) -> dict:
     """The whole JSON document as a dict (``to_json`` without the encoding)."""
     return {
         "problem": problem_to_dict(cat.problem, cat.codim),
         "hurwitz_number": rational_str(cat.hurwitz_number),
-        "strata": [stratum_to_dict(s) for s in cat.strata],
+        "strata": [stratum_to_dict(s, grouped) for s in cat.strata],
     }
 
 
-def catalogue_to_json(cat: Catalogue) -> str:
+def catalogue_to_json(cat: Catalogue, grouped: bool = False) -> str:
     """The JSON document (indented, keys in a fixed order)."""
-    return json.dumps(catalogue_to_dict(cat), indent=1)
+    return json_text(catalogue_to_dict(cat, grouped))
 
 
-def cover_to_jsonl(base, cover: Cover) -> str:
+def cover_to_jsonl(base, cover: Cover, stratum_number: int | None = None, cover_number: int | None = None) -> str:
     """One JSON line: the ``COVER`` keys plus ``"base"`` (GRAPH) and
-    ``"orbit_size"``."""
+    ``"orbit_size"``, and when given ``"stratum_number"`` and
+    ``"cover_number"`` (1-based, as the table numbers strata and covers)."""
     record = {"base": base.graph.to_dict(), "orbit_size": base.orbit_size, **cover_to_dict(cover)}
-    return json.dumps(record, separators=(",", ":"))
+    if stratum_number is not None:
+        record.update(stratum_number=stratum_number, cover_number=cover_number)
+    return json_line(record)
 
 
 def _profiles_text(cover: Cover) -> str:
-    return ";".join(",".join(map(str, p)) for p in cover.edge_profiles)
+    return profiles_csv(cover.edge_profiles)
 
 
 def cover_row(base, cover: Cover) -> tuple:
@@ -184,34 +208,65 @@ def catalogue_to_csv(cat: Catalogue) -> str:
     return buffer.getvalue()
 
 
-def catalogue_to_latex(cat: Catalogue, standalone: bool = False) -> str:
-    """A booktabs ``longtable`` (one block per stratum), or a complete document."""
-    lines = [
-        r"\begin{longtable}{llllrrlrrl}",
-        r"\toprule",
-        r"profiles & source & stable source & name & $|\mathrm{Aut}|$ & mult & weight & $L$ & br & orders \\",
-        r"\midrule",
-        r"\endhead",
-    ]
+#: Columns of the LaTeX table: the notations wrap in ragged-right columns
+#: sized as fractions of the line, the numbers take their natural width.
+LATEX_COLUMNS = (r"p{0.1\linewidth}p{0.24\linewidth}p{0.2\linewidth}rrrrrp{0.09\linewidth}")
+#: The same with the count column of grouped rows in front (the source
+#: column gives up the room it takes).
+LATEX_COLUMNS_GROUPED = (r"rp{0.09\linewidth}p{0.17\linewidth}p{0.17\linewidth}rrrrrp{0.09\linewidth}")
+
+
+def catalogue_to_latex(cat: Catalogue, standalone: bool = False, grouped: bool = True) -> str:
+    r"""A booktabs ``longtable`` in ``\footnotesize`` (one block per stratum,
+    headed by the base and its check), narrow enough for the text block of an
+    article or amsart page: the profiles, the sources and the orders wrap
+    inside their columns; or a complete document.
+
+    ``grouped`` (the default) lists covers whose rows are identical once, with
+    their number (``3\times``) in a first column and their summed weight."""
+    header = ["profiles", "source", "stable source", r"$|\mathrm{Aut}|$", "mult", "weight", "$L$", "br", "orders"]
+    if grouped:
+        header = ["covers", *header]
+    rows: list[str] = []
     for s in cat.strata:
-        head = (f"\\multicolumn{{10}}{{l}}{{base {notation_math(s.base.graph.notation)}, codim "
-                f"{s.base.graph.codim}, orbit {s.base.orbit_size}: total "
-                f"${latex_rational(s.total_weight)}$ vs.\\ $H = {latex_rational(s.hurwitz_number)}$"
-                f" ({'holds' if s.identity_holds else 'FAILS'})}} \\\\")
-        lines += [head, r"\midrule"]
-        for c in s.covers:
-            lines.append(" & ".join([
-                "$" + ";".join(",".join(map(str, p)) for p in c.edge_profiles) + "$" if c.edge_profiles else "--",
-                notation_math(c.source.notation), notation_math(c.stable_source.notation),
-                f"$\\{c.stable_source_name.replace('_', '_{')}}}$" if c.stable_source_name else "",
-                str(c.automorphisms), str(c.multiplicity), f"${latex_rational(c.weight)}$",
-                *_latex_local(local_structure(c)),
-            ]) + r" \\")
-        lines.append(r"\midrule")
-    lines[-1] = r"\bottomrule"
-    lines.append(r"\end{longtable}")
-    body = "\n".join(lines)
+        if rows:
+            rows.append(r"\midrule")
+        rows += [_latex_stratum_head(s, len(header)), r"\midrule"]
+        rows += [_latex_cover_row(c, weight, count) for count, weight, c in _latex_rows(s, grouped)]
+    spec = LATEX_COLUMNS_GROUPED if grouped else LATEX_COLUMNS
+    body = sized_longtable(spec, header, rows, size="footnotesize", tabcolsep="3pt")
     return _document(body, cat) if standalone else body
+
+
+def _latex_rows(s: StratumResult, grouped: bool) -> list[tuple]:
+    """``(count, weight, cover)`` per printed row: groups of identical rows with
+    their summed weight, or (``count`` ``None``) every cover."""
+    if grouped:
+        return [(g.count, g.total_weight, g.cover)
+                for g in group_covers(s, key=lambda c: _latex_cover_row(c, c.weight, None))]
+    return [(None, c.weight, c) for c in s.covers]
+
+
+def _latex_stratum_head(s: StratumResult, n_columns: int = 9) -> str:
+    verdict = "holds" if s.identity_holds else "FAILS"
+    text = (f"base {notation_math(s.base.graph.notation)}, codim {s.base.graph.codim}, orbit "
+            f"{s.base.orbit_size}: total ${latex_rational(s.total_weight)}$ vs.\\ "
+            f"$H = {latex_rational(s.hurwitz_number)}$ ({verdict})")
+    return f"\\multicolumn{{{n_columns}}}{{p{{0.9\\linewidth}}}}{{{wrapped_cell(text)}}} \\\\"
+
+
+def _latex_cover_row(c: Cover, weight: Fraction, count: int | None) -> str:
+    """One row: ``count`` in front when grouped, ``weight`` (summed when grouped)."""
+    name = f" ($\\{c.stable_source_name.replace('_', '_{')}}}$)" if c.stable_source_name else ""
+    orders = _latex_local(local_structure(c))
+    return " & ".join([
+        *([f"${count}\\times$"] if count is not None else []),
+        wrapped_cell(profiles_latex(c.edge_profiles)),
+        wrapped_cell(notation_math(c.source.notation)),
+        wrapped_cell(notation_math(c.stable_source.notation) + name),
+        str(c.automorphisms), str(c.multiplicity), f"${latex_rational(weight)}$",
+        *orders[:2], wrapped_cell(orders[2]),
+    ]) + r" \\"
 
 
 def _latex_local(local: LocalStructure) -> list[str]:
@@ -221,7 +276,7 @@ def _latex_local(local: LocalStructure) -> list[str]:
     if local.stable_nodes is None:
         orders = ""
     else:
-        orders = ", ".join(
+        orders = ",\\allowbreak\\ ".join(
             f"{n.order}" + (f"\\,\\delta_{{{n.type.split('_', 1)[1]}}}" if n.type else "")
             for n in local.stable_nodes
         )
@@ -233,4 +288,4 @@ def _document(body: str, cat: Catalogue) -> str:
     p = cat.problem
     title = (f"Admissible covers of degree {p.degree}, genus {p.genus} over genus "
              f"{p.target_genus}, codimension $\\le {cat.codim}$")
-    return latex_document(body, title, ["booktabs", "longtable", "amsmath"], "margin=2cm,landscape")
+    return latex_document(body, title, ["booktabs", "longtable", "amsmath"])

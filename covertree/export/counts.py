@@ -17,13 +17,13 @@ Examples
 >>> p = HurwitzProblem.build(degree=2, target_genus=1, genus=2)
 >>> print(counts_csv(p, Fraction(2), Fraction(2)), end="")
 genus,target_genus,degree,profiles,connected,disconnected
-2,1,2,(2) (2),2,2
+2,1,2,2;2,2,2
 >>> print(counts_latex(p, Fraction(2), Fraction(5, 2)))
-\begin{tabular}{rrrlrr}
+\begin{tabular}{rrrp{0.4\linewidth}rr}
 \toprule
 $g$ & $h$ & $d$ & profiles & connected & disconnected \\
 \midrule
-2 & 1 & 2 & $(2)$, $(2)$ & $2$ & $\frac{5}{2}$ \\
+2 & 1 & 2 & {\raggedright $2;\allowbreak\ 2$\par} & $2$ & $\frac{5}{2}$ \\
 \bottomrule
 \end{tabular}
 """
@@ -33,11 +33,13 @@ from __future__ import annotations
 import csv
 import io
 import json
-from collections import Counter
 from fractions import Fraction
 
+from covertree.export.latex import wrapped_cell
 from covertree.export.rational import latex_rational, rational_str
 from covertree.hurwitz.problem import HurwitzProblem
+from covertree.export.jsontext import json_text
+from covertree.export.words import profiles_csv, profiles_latex
 
 __all__ = [
     "COUNT_COLUMNS",
@@ -54,12 +56,12 @@ COUNT_COLUMNS = ("genus", "target_genus", "degree", "profiles", "connected", "di
 
 
 def profiles_text(problem: HurwitzProblem) -> str:
-    """The profiles as ``(2,1) (2,1)``, one parenthesised profile per branch point.
+    """The profiles in CSV form (:mod:`covertree.export.words`).
 
     >>> profiles_text(HurwitzProblem.build(degree=3, target_genus=0, profiles=["3", "3", "1^3"]))
-    '(3) (3) (1,1,1)'
+    '3;3;1,1,1'
     """
-    return " ".join(f"({mu})" for mu in problem.profiles)
+    return profiles_csv(problem.profiles)
 
 
 def counts_record(problem: HurwitzProblem, connected: Fraction, disconnected: Fraction) -> dict:
@@ -89,7 +91,7 @@ def counts_json(problem: HurwitzProblem, connected: Fraction, disconnected: Frac
     >>> json.loads(counts_json(p, Fraction(2), Fraction(2)))["profiles"]
     [[2], [2]]
     """
-    return json.dumps(counts_record(problem, connected, disconnected), indent=2) + "\n"
+    return json_text(counts_record(problem, connected, disconnected)) + "\n"
 
 
 def counts_csv(problem: HurwitzProblem, connected: Fraction, disconnected: Fraction) -> str:
@@ -101,25 +103,17 @@ def counts_csv(problem: HurwitzProblem, connected: Fraction, disconnected: Fract
     return buffer.getvalue()
 
 
-def _latex_profile(mu) -> str:
-    # (2,1^{3}) style: repeated parts as powers
-    parts = []
-    for part, times in sorted(Counter(mu).items(), reverse=True):
-        parts.append(str(part) if times == 1 else f"{part}^{{{times}}}")
-    return "$(" + ",".join(parts) + ")$"
-
-
 def counts_latex(problem: HurwitzProblem, connected: Fraction, disconnected: Fraction) -> str:
     r"""A small ``booktabs`` tabular (``\usepackage{booktabs}``), non-integers as
-    ``\frac``.
+    ``\frac``; the profiles wrap in 40% of the line.
 
     >>> p = HurwitzProblem.build(degree=4, target_genus=0, profiles=["2,1^2"] * 6)
     >>> print(counts_latex(p, Fraction(8), Fraction(9)).splitlines()[4])  # doctest: +ELLIPSIS
-    0 & 0 & 4 & $(2,1^{2})$, ... & $8$ & $9$ \\
+    0 & 0 & 4 & {\raggedright $2,1^{2};\allowbreak\ 2,1^{2};\allowbreak\ ...$\par} & $8$ & $9$ \\
     """
-    profiles = ", ".join(_latex_profile(mu) for mu in problem.profiles)
+    profiles = wrapped_cell(profiles_latex(problem.profiles))
     lines = [
-        r"\begin{tabular}{rrrlrr}",
+        r"\begin{tabular}{rrrp{0.4\linewidth}rr}",
         r"\toprule",
         r"$g$ & $h$ & $d$ & profiles & connected & disconnected \\",
         r"\midrule",

@@ -15,14 +15,16 @@ index,codim,vertices,automorphisms,notation
 1,0,1,1,g1{1}
 2,1,1,2,g0{1} | 0-0
 >>> print(strata_latex(graphs))  # doctest: +NORMALIZE_WHITESPACE
-\\begin{tabular}{rrrrl}
-\\hline
+\\begin{longtable}{rrrrp{0.6\\linewidth}}
+\\toprule
 \\# & codim & $|V|$ & $|\\mathrm{Aut}|$ & graph \\\\
-\\hline
-1 & 0 & 1 & 1 & \\texttt{g1\\{1\\}} \\\\
-2 & 1 & 1 & 2 & \\texttt{g0\\{1\\} | 0-0} \\\\
-\\hline
-\\end{tabular}
+\\midrule
+\\endhead
+\\bottomrule
+\\endlastfoot
+1 & 0 & 1 & 1 & {\\raggedright $g_{1}\\{1\\}$\\par} \\\\
+2 & 1 & 1 & 2 & {\\raggedright $g_{0}\\{1\\} \\allowbreak\\mid 0\\mbox{--}0$\\par} \\\\
+\\end{longtable}
 """
 
 from __future__ import annotations
@@ -32,7 +34,9 @@ import io
 import json
 from collections.abc import Sequence
 
+from covertree.export.latex import sized_longtable, wrapped_cell
 from covertree.graphs.curve_graph import CurveGraph
+from covertree.export.jsontext import json_text
 
 __all__ = ["STRATA_COLUMNS", "latex_escape", "notation_math", "strata_csv", "strata_json", "strata_latex", "strata_rows"]
 
@@ -71,7 +75,7 @@ def strata_json(target_genus: int, points: int, graphs: Sequence[CurveGraph]) ->
         "points": points,
         "strata": [g.to_dict() for g in graphs],
     }
-    return json.dumps(document, indent=2) + "\n"
+    return json_text(document) + "\n"
 
 
 def strata_csv(graphs: Sequence[CurveGraph]) -> str:
@@ -84,17 +88,14 @@ def strata_csv(graphs: Sequence[CurveGraph]) -> str:
 
 
 def strata_latex(graphs: Sequence[CurveGraph]) -> str:
-    """A LaTeX ``tabular`` (no packages needed) listing the strata."""
-    lines = [
-        r"\begin{tabular}{rrrrl}",
-        r"\hline",
-        r"\# & codim & $|V|$ & $|\mathrm{Aut}|$ & graph \\",
-        r"\hline",
-    ]
-    for i, codim, n_vertices, aut, notation in strata_rows(graphs):
-        lines.append(rf"{i} & {codim} & {n_vertices} & {aut} & \texttt{{{latex_escape(notation)}}} \\")
-    lines += [r"\hline", r"\end{tabular}"]
-    return "\n".join(lines)
+    r"""The strata as a booktabs ``longtable`` (packages ``booktabs`` and
+    ``longtable``), graphs in math mode (:func:`notation_math`), the graph
+    column ragged right in 60% of the line so long graphs wrap between
+    vertices and edges instead of overflowing."""
+    rows = [rf"{i} & {codim} & {n_vertices} & {aut} & {wrapped_cell(notation_math(notation))} \\"
+            for i, codim, n_vertices, aut, notation in strata_rows(graphs)]
+    header = [r"\#", "codim", r"$|V|$", r"$|\mathrm{Aut}|$", "graph"]
+    return sized_longtable(r"rrrrp{0.6\linewidth}", header, rows)
 
 
 def latex_escape(text: str) -> str:
@@ -119,21 +120,35 @@ def latex_escape(text: str) -> str:
 
 
 def notation_math(notation: str) -> str:
-    r"""Our graph notation in math mode: ``g0{1,2}`` -> ``g_{0}\{1,2\}``.
+    r"""Our graph notation in math mode, edges drawn as edges.
 
-    >>> print(notation_math("g0{1}, g1 | 0-1"))
-    $g_{0}\{1\}, g_{1} \mid  0-1$
+    ``g0{1,2}`` becomes ``g_{0}\{1,2\}`` (breakable after each comma); an edge ``i-j`` becomes ``i``, an
+    en dash, ``j``; ``m`` parallel edges ``i-j^m`` become ``(i`` -- ``j)^{\times
+    m}`` (a multiplicity, not a power).  A line may break after each comma
+    between vertices or edges and before the bar (``\allowbreak``).  Needs no
+    package.
+
+    >>> print(notation_math("g0{1}, g1 | 0-1, 1-1^2"))
+    $g_{0}\{1\},\allowbreak\ g_{1} \allowbreak\mid 0\mbox{--}1,\allowbreak\ (1\mbox{--}1)^{\times 2}$
+    >>> print(notation_math("g0{1,2}"))
+    $g_{0}\{1,\allowbreak 2\}$
     """
-    body = latex_escape(notation).replace(r"\^{}", "^").replace("|", r"\mid ")
-    out, i = [], 0
-    while i < len(body):
-        if body[i] == "g" and i + 1 < len(body) and body[i + 1].isdigit():
-            j = i + 1
-            while j < len(body) and body[j].isdigit():
-                j += 1
-            out.append(f"g_{{{body[i + 1:j]}}}")
-            i = j
-        else:
-            out.append(body[i])
-            i += 1
-    return "$" + "".join(out) + "$"
+    vertices, _, edges = notation.partition("|")
+    parts = [", \\allowbreak ".join(_vertex_math(v.strip()) for v in vertices.split(", ") if v.strip())]
+    if edges.strip():
+        parts.append(",\\allowbreak\\ ".join(_edge_math(e.strip()) for e in edges.split(",")))
+    return "$" + " \\allowbreak\\mid ".join(parts).replace(", \\allowbreak ", ",\\allowbreak\\ ") + "$"
+
+
+def _vertex_math(vertex: str) -> str:
+    r"""``g1{2,3}`` -> ``g_{1}\{2,3\}``."""
+    genus, brace, legs = vertex[1:].partition("{")
+    return f"g_{{{genus}}}" + (r"\{" + legs.rstrip("}").replace(",", ",\\allowbreak ") + r"\}" if brace else "")
+
+
+def _edge_math(edge: str) -> str:
+    r"""``0-1`` -> ``0\mbox{--}1``; ``0-1^2`` -> ``(0\mbox{--}1)^{\times 2}``."""
+    pair, _, times = edge.partition("^")
+    a, _, b = pair.partition("-")
+    body = f"{a.strip()}\\mbox{{--}}{b.strip()}"
+    return f"({body})^{{\\times {times}}}" if times else body

@@ -13,7 +13,17 @@ The JSON documents are contracts (keys are only ever added).  ``locus``::
 
 ``class`` is the class of the labelled problem, ``class_unordered`` divided by
 ``symmetry`` (the permutations of branch points with equal profiles); genus 2
-has the keys ``delta_0, delta_1`` only.  ``integral``::
+has the keys ``delta_0, delta_1`` only.  For a marked source (``problem``
+then has ``marks``) the classes live on ``Mbar_{G,n}`` and have the keys
+``lambda``, ``psi_1 .. psi_n`` and one per boundary divisor (``delta_0``,
+``delta_i_{a,b,...}``), ``symmetry`` only permutes unmarked branch points, and
+two more keys say how the generators were reduced::
+
+     "basis": ["lambda", "psi_1", ...],
+     "relations": {"delta_0": {"lambda": "10", ...}, ...}
+
+(generators outside the basis have coefficient 0 in the classes; each
+relation writes one of them in the basis).  ``integral``::
 
     {"problem": {...}, "source": "...", "target": "...", "value": "p/q"}
 
@@ -28,12 +38,12 @@ Examples
 
 from __future__ import annotations
 
-import json
 from fractions import Fraction
 
 from covertree.export.rational import latex_rational, rational_str
 from covertree.locus.divisor import LocusClass
 from covertree.locus.integrals import CoverSpaceIntegral
+from covertree.export.jsontext import json_text
 
 __all__ = ["locus_to_dict", "locus_to_json", "locus_to_latex", "class_text", "integral_to_dict", "integral_to_json"]
 
@@ -50,6 +60,9 @@ def locus_to_dict(result: LocusClass, family: dict[str, Fraction] | None = None)
                    "from_class": rational_str(t.from_class)} for t in result.tests],
         "consistent": result.consistent,
     }
+    if result.basis:
+        doc["basis"] = list(result.basis)
+        doc["relations"] = {k: {b: rational_str(c) for b, c in v.items()} for k, v in result.relations.items()}
     if family is not None:
         doc["family"] = rational_str(family["labelled"])
         doc["family_unordered"] = rational_str(family["unordered"])
@@ -57,7 +70,7 @@ def locus_to_dict(result: LocusClass, family: dict[str, Fraction] | None = None)
 
 
 def locus_to_json(result: LocusClass, family: dict[str, Fraction] | None = None) -> str:
-    return json.dumps(locus_to_dict(result, family), indent=1)
+    return json_text(locus_to_dict(result, family))
 
 
 def class_text(coefficients: dict[str, Fraction], latex: bool = False) -> str:
@@ -83,9 +96,18 @@ def class_text(coefficients: dict[str, Fraction], latex: bool = False) -> str:
 
 
 def _latex_symbol(name: str) -> str:
+    r"""``\lambda``, ``\psi_{k}``, ``\delta_{i}`` or ``\delta_{i,\{a,b\}}``.
+
+    >>> print(_latex_symbol("delta_1_{}"), _latex_symbol("psi_2"), _latex_symbol("delta_0_{1,2}"))
+    \delta_{1,\{\}} \psi_{2} \delta_{0,\{1,2\}}
+    """
     if name == "lambda":
         return r"\lambda"
-    return rf"\delta_{{{name.split('_')[1]}}}"
+    head, _, tail = name.partition("_")
+    number, _, legs = tail.partition("_")
+    if legs:
+        return rf"\delta_{{{number},\{{{legs.strip('{}')}\}}}}"
+    return rf"\{head}_{{{number}}}"
 
 
 def locus_to_latex(result: LocusClass) -> str:
@@ -103,4 +125,4 @@ def integral_to_dict(result: CoverSpaceIntegral) -> dict:
 
 
 def integral_to_json(result: CoverSpaceIntegral) -> str:
-    return json.dumps(integral_to_dict(result), indent=1)
+    return json_text(integral_to_dict(result))

@@ -29,13 +29,14 @@ from __future__ import annotations
 
 import csv
 import io
-import json
 
 from covertree.catalogue.pullback import Pullback
 from covertree.export.catalogue import problem_to_dict
 from covertree.export.graphs import notation_math
-from covertree.export.latex import latex_document
+from covertree.export.words import profiles_latex
+from covertree.export.latex import latex_document, sized_longtable, wrapped_cell
 from covertree.export.rational import latex_rational, rational_str
+from covertree.export.jsontext import json_text
 
 __all__ = ["pullback_to_dict", "pullback_to_json", "pullback_to_csv", "pullback_to_latex", "pullback_columns"]
 
@@ -59,7 +60,7 @@ def pullback_to_dict(pb: Pullback) -> dict:
 
 def pullback_to_json(pb: Pullback) -> str:
     """The JSON document (indented)."""
-    return json.dumps(pullback_to_dict(pb), indent=1)
+    return json_text(pullback_to_dict(pb))
 
 
 def pullback_columns(pb: Pullback) -> tuple[str, ...]:
@@ -86,28 +87,45 @@ def _delta(name: str) -> str:
     return "$\\delta_{" + name.split("_", 1)[1] + "}$"
 
 
+def problem_line(pb: Pullback) -> str:
+    r"""One sentence naming the problem of a pullback table (LaTeX).
+
+    >>> from covertree.hurwitz.problem import HurwitzProblem
+    >>> from covertree.catalogue.pullback import build_pullback
+    >>> print(problem_line(build_pullback(HurwitzProblem.build(2, 0, genus=2))))
+    Pullback $\mathrm{br}_*\mathrm{src}^*\delta$ of the boundary divisors of $\overline{M}_{2}$ to the boundary divisors $D$ of $\overline{M}_{0,6}$, for the covers of degree 2 of a genus-0 curve by a genus-2 curve, simple branching at the 6 branch points; Hurwitz number $H = \frac{1}{2}$.
+    """
+    p = pb.problem
+    simple = (2,) + (1,) * (p.degree - 2)
+    if all(tuple(mu) == simple for mu in p.profiles):
+        branching = f"simple branching at the {len(p.profiles)} branch points"
+    else:
+        branching = "profiles " + profiles_latex(p.profiles)
+    return (rf"Pullback $\mathrm{{br}}_*\mathrm{{src}}^*\delta$ of the boundary divisors of "
+            rf"$\overline{{M}}_{{{p.genus}}}$ to the boundary divisors $D$ of "
+            rf"$\overline{{M}}_{{{p.target_genus},{len(p.profiles)}}}$, for the covers of degree {p.degree} "
+            rf"of a genus-{p.target_genus} curve by a genus-{p.genus} curve, {branching}; "
+            rf"Hurwitz number $H = {latex_rational(pb.hurwitz_number)}$.")
+
+
 def pullback_to_latex(pb: Pullback, standalone: bool = False) -> str:
-    r"""A booktabs ``tabular``: one row per base divisor, a ``\delta_i`` column
-    per boundary divisor of ``Mbar_G`` and the branch total; or a complete
-    document."""
-    n = len(pb.divisors)
-    lines = [
-        r"\begin{tabular}{lr" + "r" * n + "r}",
-        r"\toprule",
-        " & ".join(["base divisor", "orbit", *map(_delta, pb.divisors), r"$\sum_f \#\mathrm{br}\cdot L/|\mathrm{Aut}|$"])
-        + r" \\",
-        r"\midrule",
-    ]
+    r"""A line naming the problem (:func:`problem_line`), then a booktabs
+    ``longtable``: one row per base divisor (wrapping in 40% of the line), a
+    ``\delta_i`` column per boundary divisor of ``Mbar_G`` and the branch
+    total; or a complete document."""
+    header = ["base divisor $D$", "orbit", *map(_delta, pb.divisors),
+              r"$\sum_f \#\mathrm{br}\cdot L/|\mathrm{Aut}|$"]
+    rows = []
     for r in pb.rows:
-        cells = [notation_math(r.base.graph.notation), str(r.base.orbit_size)]
+        cells = [wrapped_cell(notation_math(r.base.graph.notation)), str(r.base.orbit_size)]
         cells += [f"${latex_rational(r.coefficients[d])}$" for d in pb.divisors]
         cells.append(f"${latex_rational(r.branch_total)}$")
-        lines.append(" & ".join(cells) + r" \\")
-    lines += [r"\bottomrule", r"\end{tabular}"]
-    body = "\n".join(lines)
+        rows.append(" & ".join(cells) + r" \\")
+    table = sized_longtable(r"p{0.4\linewidth}r" + "r" * len(pb.divisors) + "r", header, rows)
+    body = "\n".join([r"\noindent " + problem_line(pb), "", table])
     if not standalone:
         return body
     p = pb.problem
     title = (f"Pullbacks of the boundary of $\\overline{{M}}_{{{p.genus}}}$: degree {p.degree} covers "
              f"of genus {p.target_genus}, $H = {latex_rational(pb.hurwitz_number)}$")
-    return latex_document(body, title, ["booktabs", "amsmath"])
+    return latex_document(body, title, ["booktabs", "longtable", "amsmath"])

@@ -33,38 +33,24 @@ Examples
 >>> [t["value"] for t in doc["terms"]], doc["identification"]["form"], doc["identification"]["checked"]
 (['1', '3/2', '4/3', '7/4', '6/5', '2'], '(1 - E2)/24', 5)
 >>> print(series_to_csv(s).splitlines()[2])
-2,3/2,3,(1^2)
+2,3/2,3,1^2
 """
 
 from __future__ import annotations
 
 import csv
 import io
-import json
 
 from covertree.export.rational import latex_rational, rational_str
 from covertree.series.generating import DegreeSeries
+from covertree.export.jsontext import json_text
+from covertree.export.words import profile_text
 
-__all__ = ["SERIES_COLUMNS", "compact_profile", "series_rows", "series_summary", "series_to_csv", "series_to_dict", "series_to_json",
+__all__ = ["SERIES_COLUMNS", "series_rows", "series_summary", "series_to_csv", "series_to_dict", "series_to_json",
            "series_to_latex"]
 
 #: Column names of the CSV rendering (and of the command's table).
 SERIES_COLUMNS = ("degree", "value", "coefficient", "profiles")
-
-
-def compact_profile(parts) -> str:
-    """``2,1^3`` for ``(2, 1, 1, 1)``.
-
-    >>> compact_profile((3, 3, 1))
-    '3^2,1'
-    """
-    runs: list[list[int]] = []
-    for x in parts:
-        if runs and runs[-1][0] == x:
-            runs[-1][1] += 1
-        else:
-            runs.append([x, 1])
-    return ",".join(f"{x}^{m}" if m > 1 else str(x) for x, m in runs)
 
 
 def _profiles(term) -> str:
@@ -77,7 +63,7 @@ def _profiles(term) -> str:
             runs[-1][1] += 1
         else:
             runs.append([p, 1])
-    return " ".join(f"{m} x ({compact_profile(p)})" if m > 1 else f"({compact_profile(p)})" for p, m in runs) or "-"
+    return "; ".join(f"{m} x {profile_text(p)}" if m > 1 else profile_text(p) for p, m in runs) or "-"
 
 
 def series_rows(s: DegreeSeries) -> list[tuple[int, str, str, str]]:
@@ -122,7 +108,7 @@ def series_to_dict(s: DegreeSeries) -> dict:
 
 def series_to_json(s: DegreeSeries) -> str:
     """The JSON document (indented, keys in a fixed order)."""
-    return json.dumps(series_to_dict(s), indent=1)
+    return json_text(series_to_dict(s))
 
 
 def series_to_csv(s: DegreeSeries) -> str:
@@ -150,10 +136,10 @@ def series_summary(s: DegreeSeries) -> str:
 def series_to_latex(s: DegreeSeries) -> str:
     """A LaTeX fragment: the table of coefficients and the identified form (or
     the plain statement that none fits)."""
-    lines = [r"\begin{tabular}{rrr}", r"\hline", r"$d$ & value & $[q^d]$ \\", r"\hline"]
+    lines = [r"\begin{tabular}{rrr}", r"\toprule", r"$d$ & value & $[q^d]$ \\", r"\midrule"]
     for t, c in zip(s.terms, s.coefficients[1:]):
         lines.append(f"{t.degree} & ${latex_rational(t.value)}$ & ${latex_rational(c)}$ \\\\")
-    lines += [r"\hline", r"\end{tabular}", ""]
+    lines += [r"\bottomrule", r"\end{tabular}", ""]
     found = s.identification
     if found.found:
         lines.append(rf"\[ \sum_{{d \ge 0}} [q^d]\, q^d = {found.latex} \]")

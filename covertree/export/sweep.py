@@ -15,12 +15,19 @@ The JSON document is a contract (keys are only ever added)::
 
     ROW = {"genus", "target_genus", "degree", "profiles", "base": NOTATION, "codim",
            "orbit_size", "n_covers", "total_weight": "p/q", "hurwitz_number": "p/q",
-           "identity": bool, "landing": {"delta_0": "p/q", ..., "other": "p/q"}}
+           "identity": bool, "landing": {"delta_0": "p/q", ..., "other": "p/q"},
+           "base_graph": GRAPH}
 
-``landing`` is the weight whose stable source is the boundary divisor
-``delta_i`` of ``Mbar_g`` (``i = 0 .. g//2``), the rest (smooth or deeper
-stable sources, genus below 2) under ``"other"``.  The CSV has one column per
-``delta_i`` up to the largest genus in the rows (empty where ``i > g//2``).
+``landing`` is the weight whose stable source lies in the open boundary
+divisor ``delta_i`` of ``Mbar_g`` (``i = 0 .. g//2``), the rest (smooth or
+deeper stable sources, genus below 2) under ``"other"``.  This is not the
+pullback coefficient ``c(D, delta_i)`` of ``covertree pullback`` (which
+counts branches and smoothing orders): in tables and CSV the landing
+columns are headed ``lands in delta_i`` / ``lands_in_delta_i`` and
+``elsewhere`` / ``lands_elsewhere``, never plain ``delta_i``.  The CSV has one
+column per ``delta_i`` up to the largest genus in the rows (empty where
+``i > g//2``).  ``base_graph`` is the base as a graph object (as in the
+catalogue's JSON), beside the notation string ``base``.
 
 Examples
 --------
@@ -29,7 +36,7 @@ Examples
 >>> plan = plan_sweep(SweepSpec((2,), (1,), (2,)))
 >>> report = sweep_report(plan, [compute_task(t) for t in plan.tasks])
 >>> print(sweep_to_csv(report))
-genus,target_genus,degree,profiles,base,codim,orbit_size,n_covers,total_weight,hurwitz_number,identity,delta_0,delta_1,other
+genus,target_genus,degree,profiles,base,codim,orbit_size,n_covers,total_weight,hurwitz_number,identity,lands_in_delta_0,lands_in_delta_1,lands_elsewhere
 2,1,2,2;2,"g1{1,2}",0,1,4,2,2,true,0,0,2
 2,1,2,2;2,"g0{1,2} | 0-0",1,1,3,2,2,true,1,0,1
 2,1,2,2;2,"g0{1,2}, g1 | 0-1",1,1,4,2,2,true,3/2,1/2,0
@@ -50,14 +57,18 @@ from fractions import Fraction
 from covertree import MODEL_VERSION
 from covertree.errors import InputError
 from covertree.export.graphs import notation_math
+from covertree.export.latex import sized_longtable, wrapped_cell
 from covertree.export.rational import latex_rational, rational_str
+from covertree.graphs.curve_graph import StableCurveGraph
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.sweep.report import Shard, SweepReport
 from covertree.sweep.tasks import Skipped, StratumSummary, SweepSpec, divisor_names
 from covertree.symmetric.partitions import Partition
+from covertree.export.jsontext import json_text
+from covertree.export.words import count_noun, profiles_csv, profiles_latex
 
 __all__ = ["sweep_to_dict", "sweep_to_json", "sweep_to_csv", "sweep_to_latex", "sweep_from_json",
-           "summary_line", "landing_columns", "ROW_COLUMNS"]
+           "summary_line", "landing_columns", "landing_header", "ROW_COLUMNS"]
 
 #: The CSV columns before the landing columns (stable: scripts rely on them).
 ROW_COLUMNS = ("genus", "target_genus", "degree", "profiles", "base", "codim", "orbit_size",
@@ -73,6 +84,7 @@ def row_to_dict(row: StratumSummary) -> dict:
         "orbit_size": row.orbit_size, "n_covers": row.n_covers,
         "total_weight": rational_str(row.total_weight), "hurwitz_number": rational_str(row.hurwitz_number),
         "identity": row.identity_holds, "landing": {name: rational_str(w) for name, w in row.landing},
+        "base_graph": StableCurveGraph.parse(row.stratum).to_dict(),
     }
 
 
@@ -94,7 +106,22 @@ def sweep_to_dict(report: SweepReport) -> dict:
 
 def sweep_to_json(report: SweepReport) -> str:
     """The JSON document (indented, keys in a fixed order)."""
-    return json.dumps(sweep_to_dict(report), indent=1)
+    return json_text(sweep_to_dict(report))
+
+
+def landing_header(column: str, medium: str = "table") -> str:
+    """The header of a landing column (``delta_i`` or ``other``) in a table,
+    CSV or LaTeX: never the bare divisor name, which in ``pullback`` means
+    the coefficient ``c(D, delta_i)``.
+
+    >>> [landing_header(c, m) for m in ("table", "csv") for c in ("delta_1", "other")]
+    ['lands in delta_1', 'elsewhere', 'lands_in_delta_1', 'lands_elsewhere']
+    """
+    if medium == "csv":
+        return "lands_elsewhere" if column == "other" else f"lands_in_{column}"
+    if medium == "latex":
+        return "elsewhere" if column == "other" else r"in $\delta_{" + column.split("_")[1] + "}$"
+    return "elsewhere" if column == "other" else f"lands in {column}"
 
 
 def landing_columns(report: SweepReport) -> list[str]:
@@ -106,7 +133,7 @@ def landing_columns(report: SweepReport) -> list[str]:
 def _csv_row(row: StratumSummary, columns: list[str]) -> list:
     d = row_to_dict(row)
     head = [d[k] for k in ROW_COLUMNS]
-    head[3] = ";".join(",".join(map(str, mu)) for mu in d["profiles"])
+    head[3] = profiles_csv(d["profiles"])
     head[10] = "true" if d["identity"] else "false"
     return head + [d["landing"].get(name, "") for name in columns]
 
@@ -116,7 +143,7 @@ def sweep_to_csv(report: SweepReport) -> str:
     buffer = io.StringIO()
     writer = csv.writer(buffer, lineterminator="\n")
     columns = landing_columns(report)
-    writer.writerow([*ROW_COLUMNS, *columns])
+    writer.writerow([*ROW_COLUMNS, *(landing_header(c, "csv") for c in columns)])
     for row in report.rows:
         writer.writerow(_csv_row(row, columns))
     return buffer.getvalue()
@@ -125,16 +152,16 @@ def sweep_to_csv(report: SweepReport) -> str:
 def summary_line(report: SweepReport) -> str:
     """``"P problems (S skipped), T strata, C covers, F identity failures"``."""
     s = report.summary()
-    plural = "" if s["problems"] == 1 else "s"
-    return (f"{s['problems']} problem{plural} ({s['skipped']} skipped), {s['strata']} strata, "
-            f"{s['covers']} covers, {s['failures']} identity failures")
+    return (f"{count_noun(s['problems'], 'problem')} ({s['skipped']} skipped), "
+            f"{count_noun(s['strata'], 'stratum', 'strata')}, {count_noun(s['covers'], 'cover')}, "
+            f"{count_noun(s['failures'], 'identity failure')}")
 
 
 def _latex_row(row: StratumSummary, columns: list[str]) -> str:
     p, landing = row.problem, dict(row.landing)
     cells = [str(p.genus), str(p.target_genus), str(p.degree),
-             "$" + ";".join(",".join(map(str, mu)) for mu in p.profiles) + "$" if p.profiles else "--",
-             notation_math(row.stratum), str(row.orbit_size), count_text(row.n_covers),
+             wrapped_cell(profiles_latex(p.profiles)),
+             wrapped_cell(notation_math(row.stratum)), str(row.orbit_size), count_text(row.n_covers),
              f"${latex_rational(row.total_weight)}$", f"${latex_rational(row.hurwitz_number)}$",
              "holds" if row.identity_holds else "FAILS"]
     cells += [f"${latex_rational(landing[c])}$" if c in landing else "" for c in columns]
@@ -142,15 +169,16 @@ def _latex_row(row: StratumSummary, columns: list[str]) -> str:
 
 
 def sweep_to_latex(report: SweepReport) -> str:
-    r"""A booktabs ``longtable``, one line per row, then the summary line."""
+    r"""A booktabs ``longtable`` in ``\scriptsize`` (one line per row; the
+    profiles and the base wrap inside their columns, so the table keeps to the
+    text width of an article or amsart page), then the summary line."""
     columns = landing_columns(report)
-    names = [r"$\delta_{" + c.split("_")[1] + "}$" if c != "other" else "other" for c in columns]
+    names = [landing_header(c, "latex") for c in columns]
     head = [r"$g$", r"$h$", r"$d$", "profiles", "base", "orbit", "covers", "total", "$H$", "identity"]
-    lines = [r"\begin{longtable}{" + "rrrll" + "r" * (5 + len(columns)) + "}", r"\toprule",
-             " & ".join(head + names) + r" \\", r"\midrule", r"\endhead"]
-    lines += [_latex_row(row, columns) for row in report.rows]
-    lines += [r"\bottomrule", r"\end{longtable}", "", summary_line(report) + "."]
-    return "\n".join(lines)
+    spec = r"rrrp{0.1\linewidth}p{0.19\linewidth}" + "r" * (5 + len(columns))
+    table = sized_longtable(spec, head + names, [_latex_row(row, columns) for row in report.rows],
+                            size="scriptsize", tabcolsep="2pt")
+    return "\n".join([table, "", summary_line(report) + "."])
 
 
 def sweep_from_json(text: str, name: str = "input") -> SweepReport:

@@ -24,11 +24,11 @@ Examples
 
 from __future__ import annotations
 
-import json
 
 from covertree.export.catalogue import problem_to_dict
 from covertree.export.rational import rational_str
 from covertree.tallies.types import TallyCatalogue, TypeTally
+from covertree.export.jsontext import json_text
 
 __all__ = ["tally_to_dict", "tallies_to_dict", "tallies_to_json"]
 
@@ -60,4 +60,4 @@ def tallies_to_dict(tallies: TallyCatalogue) -> dict:
 
 def tallies_to_json(tallies: TallyCatalogue) -> str:
     """The JSON document (indented, keys in a fixed order)."""
-    return json.dumps(tallies_to_dict(tallies), indent=1)
+    return json_text(tallies_to_dict(tallies))

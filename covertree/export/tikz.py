@@ -3,10 +3,14 @@ r"""Pictures of graphs as TikZ, and the layout shared with the image drawer.
 A graph is drawn with its vertices as circles showing their genus, its legs
 as short labelled strokes, its edges as lines; parallel edges as arcs of
 different curvature (bend angles symmetric about the straight line), loops as
-drop-shaped curves pointing away from the rest of the graph, spread apart
-when a vertex has several loops and legs.  A cover is drawn as its source
-(edges labelled by their ramification index ``e``), an arrow, and its base
-(edges labelled by the profile over the node, legs by the branch points).
+teardrops leaving and re-entering their vertex's circle, pointing away from
+the rest of the graph, spread apart when a vertex has several loops and legs.
+A cover is drawn as its source above (each component over its image; nodes
+labelled by their ramification index ``e``), a downward arrow, and its base
+below (nodes labelled by the profile over them, legs by the branch points):
+see :mod:`covertree.export.picture`.  Several pictures with their captions
+flow side by side and wrap at the end of the line (:func:`picture_flow`); a
+picture wider than :data:`MAX_WIDTH` is scaled down to it.
 
 The layout (:func:`layout`) is plain geometry, in centimetres: vertices on a
 circle (one vertex at the origin, two side by side), an outward direction per
@@ -18,8 +22,8 @@ Examples
 --------
 >>> from covertree.graphs.notation import parse_graph
 >>> pic = graph_to_tikz(parse_graph("g0, g1 | 0-0, 0-1^2"))
->>> pic.count(r"\begin{tikzpicture}"), pic.count("to[bend"), pic.count("looseness")
-(1, 2, 1)
+>>> pic.count(r"\begin{tikzpicture}"), pic.count(".. controls")
+(1, 3)
 """
 
 from __future__ import annotations
@@ -28,10 +32,11 @@ import math
 from collections.abc import Sequence
 from dataclasses import dataclass
 
-from covertree.export.graphs import latex_escape
+from covertree.export.graphs import notation_math
 from covertree.export.latex import latex_document
 
-__all__ = ["Layout", "layout", "graph_to_tikz", "cover_to_tikz", "tikz_document", "strata_tikz", "catalogue_tikz"]
+__all__ = ["Layout", "layout", "graph_to_tikz", "parts_to_tikz", "cover_to_tikz", "tikz_document", "strata_tikz",
+           "catalogue_tikz", "picture_flow"]
 
 #: Distance between neighbouring vertices on the layout circle (cm).
 SPACING = 2.2
@@ -86,6 +91,10 @@ class Layout:
         u = 1 - t
         return u * u * x0 + 2 * u * t * cx + t * t * x1, u * u * y0 + 2 * u * t * cy + t * t * y1
 
+    def label_point(self, edges: Sequence[tuple[int, int]], k: int) -> tuple[float, float]:
+        """Where the label of edge ``k`` sits."""
+        return self.edge_point(edges, k, self.label_pos[k])
+
     def control(self, edges: Sequence[tuple[int, int]], k: int) -> tuple[float, float]:
         """Control point of the quadratic curve of a non-loop edge ``k``:
         twice the sagitta ``(d/2) tan(bend/2)`` off the chord, to the left of
@@ -139,11 +148,11 @@ def layout(n_vertices: int, edges: Sequence[tuple[int, int]], legs: Sequence[Seq
             else:
                 leg_angles[k] = angle
     lay = Layout(positions, bends, loop_angles, leg_angles, [0.5] * len(edges))
-    _spread_labels(lay, edges)
+    spread_labels(lay, edges)
     return lay
 
 
-def _spread_labels(lay: Layout, edges: Sequence[tuple[int, int]]) -> None:
+def spread_labels(lay: Layout, edges: Sequence[tuple[int, int]]) -> None:
     """Move a label along its edge while it is too close to an earlier one."""
     placed: list[tuple[float, float]] = []
     for k in range(len(edges)):
@@ -222,12 +231,13 @@ def _fmt(x: float) -> str:
 
 
 def _picture_lines(genera: Sequence[int], edges: Sequence[tuple[int, int]], legs: Sequence[Sequence[int]],
-                   edge_labels: Sequence[str] | None, prefix: str, shift: tuple[float, float]) -> list[str]:
-    lay = layout(len(genera), edges, legs)
-    sx, sy = shift
+                   edge_labels: Sequence[str] | None, prefix: str, lay: Layout) -> list[str]:
+    """TikZ commands drawing one graph at the positions of ``lay``."""
+    from covertree.export.picture import LOOP_SPREAD, loop_curve
+
     lines = []
     for v, (g, (x, y)) in enumerate(zip(genera, lay.positions)):
-        lines.append(f"  \\node[vertex] ({prefix}{v}) at ({_fmt(x + sx)},{_fmt(y + sy)}) {{${g}$}};")
+        lines.append(f"  \\node[vertex] ({prefix}{v}) at ({_fmt(x)},{_fmt(y)}) {{${g}$}};")
     for k, (a, b) in enumerate(edges):
         label = ""
         if edge_labels is not None and edge_labels[k] != "":
@@ -235,88 +245,128 @@ def _picture_lines(genera: Sequence[int], edges: Sequence[tuple[int, int]], legs
             label = f" node[elabel{pos}] {{${edge_labels[k]}$}}"
         if a == b:
             angle = lay.loop_angles[k]
-            lines.append(
-                f"  \\draw ({prefix}{a}) to[out={_fmt(angle + 25)},in={_fmt(angle - 25)},looseness=7,min distance=6mm]"
-                f"{label} ({prefix}{a});"
-            )
+            _start, (x1, y1), (x2, y2), _end = loop_curve(lay.positions[a], angle)
+            lines.append(f"  \\draw ({prefix}{a}.{_fmt(angle + LOOP_SPREAD)}) .. controls ({_fmt(x1)},{_fmt(y1)}) "
+                         f"and ({_fmt(x2)},{_fmt(y2)}) ..{label} ({prefix}{a}.{_fmt(angle - LOOP_SPREAD)});")
         elif lay.bends[k] == 0:
-            lines.append(f"  \\draw ({prefix}{a}) to{label} ({prefix}{b});")
+            lines.append(f"  \\draw ({prefix}{a}) --{label} ({prefix}{b});")
         else:
-            side = "left" if lay.bends[k] > 0 else "right"
-            lines.append(f"  \\draw ({prefix}{a}) to[bend {side}={abs(lay.bends[k])}]{label} ({prefix}{b});")
+            # the quadratic curve of the layout, written as the equal cubic
+            (x0, y0), (x1, y1) = lay.positions[a], lay.positions[b]
+            cx, cy = lay.control(edges, k)
+            c1 = (x0 + 2 * (cx - x0) / 3, y0 + 2 * (cy - y0) / 3)
+            c2 = (x1 + 2 * (cx - x1) / 3, y1 + 2 * (cy - y1) / 3)
+            lines.append(f"  \\draw ({prefix}{a}) .. controls ({_fmt(c1[0])},{_fmt(c1[1])}) and "
+                         f"({_fmt(c2[0])},{_fmt(c2[1])}) ..{label} ({prefix}{b});")
     flat = 0
     for v, labels in enumerate(legs):
         x, y = lay.positions[v]
         for j in labels:
             angle = math.radians(lay.leg_angles[flat])
             flat += 1
-            ex, ey = x + sx + LEG * math.cos(angle), y + sy + LEG * math.sin(angle)
-            lx, ly = x + sx + (LEG + 0.22) * math.cos(angle), y + sy + (LEG + 0.22) * math.sin(angle)
+            ex, ey = x + LEG * math.cos(angle), y + LEG * math.sin(angle)
+            lx, ly = x + (LEG + 0.22) * math.cos(angle), y + (LEG + 0.22) * math.sin(angle)
             lines.append(f"  \\draw ({prefix}{v}) -- ({_fmt(ex)},{_fmt(ey)});")
             lines.append(f"  \\node[llabel] at ({_fmt(lx)},{_fmt(ly)}) {{${j}$}};")
     return lines
 
 
-_STYLES = (
-    "[vertex/.style={circle,draw,thick,minimum size=6mm,inner sep=1pt,fill=white},"
-    "elabel/.style={fill=white,inner sep=1pt,font=\\scriptsize},"
-    "llabel/.style={inner sep=1pt,font=\\scriptsize},baseline=(current bounding box.center)]"
-)
+#: Widest picture (cm) printed at full size; wider ones are scaled to it
+#: (the text block of an article is about 12 cm).
+MAX_WIDTH = 11.5
 
 
-def _extent(genera, edges, legs) -> float:
-    """Half-width of a drawing (cm), for placing two side by side."""
-    lay = layout(len(genera), edges, legs)
-    return max(abs(x) for x, _ in lay.positions) + LEG + 0.6
+def _opening(width: float) -> str:
+    """``\\begin{tikzpicture}`` with the styles, scaled down (nodes too) when
+    wider than :data:`MAX_WIDTH`; the baseline is the top, so pictures of
+    different heights set side by side line up at their tops."""
+    scale = "" if width <= MAX_WIDTH else f",scale={_fmt(MAX_WIDTH / width)},every node/.append style={{transform shape}}"
+    return (r"\begin{tikzpicture}[vertex/.style={circle,draw,thick,minimum size=6mm,inner sep=1pt,fill=white},"
+            r"elabel/.style={fill=white,inner sep=1pt,font=\scriptsize},"
+            r"llabel/.style={inner sep=1pt,font=\scriptsize},baseline=(current bounding box.north)" + scale + "]")
 
 
 def graph_to_tikz(graph, edge_labels: Sequence[str] | None = None) -> str:
     """One ``tikzpicture`` of a :class:`~covertree.graphs.curve_graph.CurveGraph`
     (edges in its canonical order; ``edge_labels`` one per edge)."""
-    lines = [r"\begin{tikzpicture}" + _STYLES]
-    lines += _picture_lines(graph.vertex_genera, graph.nodes, graph.vertex_legs, edge_labels, "v", (0.0, 0.0))
-    lines.append(r"\end{tikzpicture}")
-    return "\n".join(lines)
+    return parts_to_tikz(graph.vertex_genera, graph.nodes, graph.vertex_legs, edge_labels)
 
 
-def pair_to_tikz(source, source_labels: Sequence[str], base, base_labels: Sequence[str], degree: int) -> str:
-    """One ``tikzpicture``: the graph ``source`` (edge labels ``source_labels``),
-    an arrow marked with the degree, and the graph ``base``."""
-    left = _extent(source.vertex_genera, source.nodes, source.vertex_legs)
-    right = _extent(base.vertex_genera, base.nodes, base.vertex_legs)
-    gap = 1.6
-    lines = [r"\begin{tikzpicture}" + _STYLES]
-    lines += _picture_lines(source.vertex_genera, source.nodes, source.vertex_legs, source_labels, "s", (0.0, 0.0))
-    lines += _picture_lines(base.vertex_genera, base.nodes, base.vertex_legs, base_labels, "b", (left + gap + right, 0.0))
-    lines.append(f"  \\draw[->,thick] ({_fmt(left + 0.1)},0) -- node[above,font=\\scriptsize] "
-                 f"{{$\\times{degree}$}} ({_fmt(left + gap - 0.1)},0);")
-    lines.append(r"\end{tikzpicture}")
-    return "\n".join(lines)
+def parts_to_tikz(genera: Sequence[int], edges: Sequence[tuple[int, int]], legs: Sequence[Sequence[int]],
+                  edge_labels: Sequence[str] | None = None) -> str:
+    """One ``tikzpicture`` of the graph given by its parts, in their order."""
+    from covertree.export.picture import extent
+
+    lay = layout(len(genera), edges, legs)
+    x0, x1, _y0, _y1 = extent(lay, edges, legs)
+    lines = _picture_lines(genera, edges, legs, edge_labels, "v", lay)
+    return "\n".join([_opening(x1 - x0), *lines, r"\end{tikzpicture}"])
+
+
+def graph_width(graph) -> float:
+    """Width (cm) of the picture of a graph, before any scaling."""
+    from covertree.export.picture import extent
+
+    lay = layout(graph.n_vertices, graph.nodes, graph.vertex_legs)
+    x0, x1, _y0, _y1 = extent(lay, graph.nodes, graph.vertex_legs)
+    return x1 - x0
+
+
+def cover_picture(cover, base_graph):
+    """The :class:`~covertree.export.picture.CoverLayout` of a cover, drawn
+    from its glued data (each source component over its base component),
+    with the source's parts: ``(layout, genera, edges, edge_labels)``."""
+    from covertree.export.picture import cover_layout
+
+    raw = cover.raw
+    pic = cover_layout(raw.source_genera, raw.source_edges, raw.source_vertex_over, base_graph.vertex_genera,
+                       base_graph.nodes, base_graph.vertex_legs)
+    return pic, raw.source_genera, raw.source_edges, [str(e) for e in raw.source_edge_index]
 
 
 def cover_to_tikz(cover, base_graph) -> str:
-    """One ``tikzpicture`` of a cover: its source (edges labelled by the
-    ramification indices ``e``), an arrow, and the base ``base_graph`` (edges
-    labelled by the profiles over the nodes, legs by the branch points)."""
-    from covertree.catalogue.local_structure import local_structure
-
+    """One ``tikzpicture`` of a cover: its source above (components over their
+    images, nodes labelled by the ramification indices ``e``), an arrow marked
+    with the degree, and the base ``base_graph`` below (nodes labelled by the
+    profiles over them, legs by the branch points)."""
     raw = cover.raw
     degree = sum(d for d, v in zip(raw.source_degrees, raw.source_vertex_over) if v == 0)
-    indices = local_structure(cover).source_indices
-    return pair_to_tikz(cover.source, [str(e) for e in indices], base_graph,
-                        [",".join(map(str, p)) for p in cover.edge_profiles], degree)
+    pic, genera, edges, labels = cover_picture(cover, base_graph)
+    base_labels = [",".join(map(str, p)) for p in cover.edge_profiles]
+    return layout_to_tikz(pic, genera, edges, labels, base_graph, base_labels, degree)
 
 
-def tikz_document(pictures: Sequence[str], captions: Sequence[str] | None = None, title: str | None = None) -> str:
-    """A complete LaTeX document with one picture per paragraph (and its caption)."""
-    lines = []
-    for i, pic in enumerate(pictures):
-        lines.append(r"\noindent")
-        lines.append(pic)
-        if captions is not None:
-            lines.append(r"\\[2pt]{\small " + captions[i] + "}")
-        lines.append(r"\par\bigskip")
-    return latex_document("\n".join(lines), title, ["tikz"])
+def layout_to_tikz(pic, genera, edges, labels, base_graph, base_labels, degree: int | None) -> str:
+    """TikZ of a :class:`~covertree.export.picture.CoverLayout`."""
+    no_legs: list[list[int]] = [[] for _ in genera]
+    lines = _picture_lines(genera, edges, no_legs, labels, "s", pic.source)
+    lines += _picture_lines(base_graph.vertex_genera, base_graph.nodes, base_graph.vertex_legs, base_labels, "b",
+                            pic.base)
+    x, start, end = pic.arrow
+    mark = "" if degree is None else f" node[right,font=\\scriptsize] {{$\\times{degree}$}}"
+    lines.append(f"  \\draw[->,thick] ({_fmt(x)},{_fmt(start)}) --{mark} ({_fmt(x)},{_fmt(end)});")
+    return "\n".join([_opening(pic.box[1] - pic.box[0]), *lines, r"\end{tikzpicture}"])
+
+
+#: Least width (cm) of the box holding a picture and its caption.
+CAPTION_WIDTH = {"graph": 3.4, "cover": 6.0}
+
+
+def picture_flow(pictures: Sequence[str], captions: Sequence[str], widths: Sequence[float], kind: str) -> str:
+    r"""Pictures with their captions set side by side as boxes that wrap to
+    the next line when the line is full (never wider than the line), rows
+    apart by ``\lineskip``; a paragraph of its own.  Needs only tikz."""
+    items = []
+    for pic, caption, width in zip(pictures, captions, widths):
+        box = max(CAPTION_WIDTH[kind], min(width, MAX_WIDTH) + 0.4)
+        items.append(f"\\parbox[t]{{{_fmt(box)}cm}}{{\\centering\n{pic}\\\\[3pt]\n{{\\footnotesize {caption}}}}}")
+    return "\n".join([r"\par{\setlength{\lineskip}{14pt}\noindent\raggedright",
+                      "\n\\hspace{1.2em plus 1fil}\n".join(items), r"\par}"])
+
+
+def tikz_document(body: str, title: str | None = None) -> str:
+    """A complete LaTeX document around a flow of pictures."""
+    return latex_document(body, title, ["tikz"])
 
 
 def delta_math(name: str) -> str:
@@ -328,37 +378,34 @@ def delta_math(name: str) -> str:
     return "$\\delta_{" + name.split("_", 1)[1] + "}$"
 
 
-def _tt(notation: str) -> str:
-    return r"\texttt{" + latex_escape(notation) + "}"
-
-
 def strata_tikz(graphs, standalone: bool = False, title: str | None = None) -> str:
-    """One picture per stratum, each followed by its notation (a comment when
-    not standalone)."""
+    """One picture per stratum with its number, notation and automorphisms
+    below, flowing several to a line."""
     pictures = [graph_to_tikz(g) for g in graphs]
-    captions = [f"{i}. {_tt(g.notation)}, $|\\mathrm{{Aut}}| = {g.automorphisms}$"
+    captions = [f"{i}. {notation_math(g.notation)}, $|\\mathrm{{Aut}}| = {g.automorphisms}$"
                 for i, g in enumerate(graphs, start=1)]
-    if standalone:
-        return tikz_document(pictures, captions, title)
-    return "\n".join(f"% {i}. {g.notation}\n{pic}" for i, (g, pic) in enumerate(zip(graphs, pictures), start=1))
+    body = picture_flow(pictures, captions, [graph_width(g) for g in graphs], "graph")
+    return tikz_document(body, title) if standalone else body
 
 
 def catalogue_tikz(cat, standalone: bool = False) -> str:
-    """One picture per cover of a catalogue (source, arrow, base)."""
+    """One picture per cover of a catalogue (source over base), with its
+    stratum, number and weight below, flowing several to a line."""
     from covertree.export.rational import latex_rational
 
-    pictures, captions, notes = [], [], []
+    pictures, captions, widths = [], [], []
     for s in cat.strata:
         for i, c in enumerate(s.covers, start=1):
             pictures.append(cover_to_tikz(c, s.base.graph))
+            pic = cover_picture(c, s.base.graph)[0]
+            widths.append(pic.box[1] - pic.box[0])
             name = f", {delta_math(c.stable_source_name)}" if c.stable_source_name else ""
-            captions.append(f"base {_tt(s.base.graph.notation)}, cover {i}: stable source "
-                            f"{_tt(c.stable_source.notation)}{name}, $|\\mathrm{{Aut}}| = {c.automorphisms}$, "
-                            f"weight ${latex_rational(c.weight)}$")
-            notes.append(f"% base {s.base.graph.notation}, cover {i}: source {c.source.notation}, "
-                         f"stable source {c.stable_source.notation}")
+            captions.append(f"base {notation_math(s.base.graph.notation)}, cover {i}: stable source "
+                            f"{notation_math(c.stable_source.notation)}{name}, "
+                            f"$|\\mathrm{{Aut}}| = {c.automorphisms}$, weight ${latex_rational(c.weight)}$")
+    body = picture_flow(pictures, captions, widths, "cover")
     if standalone:
         p = cat.problem
         title = (f"Admissible covers of degree {p.degree}, genus {p.genus} over genus {p.target_genus}")
-        return tikz_document(pictures, captions, title)
-    return "\n".join(f"{note}\n{pic}" for note, pic in zip(notes, pictures))
+        return tikz_document(body, title)
+    return body

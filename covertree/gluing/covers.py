@@ -34,12 +34,14 @@ from __future__ import annotations
 
 from collections import Counter
 from collections.abc import Iterator, Sequence
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
+from fractions import Fraction
 from functools import lru_cache
 from math import factorial, prod
 
+from covertree.errors import IdentityError
 from covertree.graphs.curve_graph import CurveGraph
-from covertree.gluing.structure import Glued, Port, canonical_code, least_cycles
+from covertree.gluing.structure import Glued, Port, canonical_code, least_cycles, piece_cycles
 from covertree.monodromy.local import LocalCover, local_covers, special_points
 from covertree.monodromy.pieces import Piece
 
@@ -61,6 +63,9 @@ class GluedCover:
         Source nodes as pairs of components (over side 0, over side 1).
     source_edge_over, source_edge_index : tuple of int
         Per source node: the base edge below and the ramification index.
+    source_legs : tuple of int
+        For a marked problem, the component carrying each leg (leg order);
+        ``code`` and ``automorphisms`` are then those of the marked cover.
     """
 
     code: tuple
@@ -73,6 +78,7 @@ class GluedCover:
     source_edges: tuple[tuple[int, int], ...]
     source_edge_over: tuple[int, ...]
     source_edge_index: tuple[int, ...]
+    source_legs: tuple[int, ...] = ()
 
 
 @lru_cache(maxsize=256)
@@ -80,13 +86,25 @@ def _local_covers(degree: int, genus: int, profiles: tuple) -> tuple[LocalCover,
     return tuple(local_covers(degree, genus, profiles))
 
 
-def glued_covers(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]]) -> Iterator[GluedCover]:
+def glued_covers(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]],
+                 marks: Sequence[tuple[int, int]] = ()) -> Iterator[GluedCover]:
     """Every admissible cover with connected source over a fixed curve of type
     ``base`` (legs ``j`` of profile ``profiles[j-1]``), each class once, in a
-    deterministic order, streamed as found."""
+    deterministic order, streamed as found.
+
+    With ``marks`` (one ``(J, e)`` per leg of the source,
+    :mod:`covertree.hurwitz.marks`) every marked cover is listed once: the
+    labellings of the marked points of each cover, up to its automorphisms.
+
+    >>> from covertree.graphs.curve_graph import StableCurveGraph
+    >>> base = StableCurveGraph([(1, [1])])
+    >>> [(c.automorphisms, c.source_legs) for c in glued_covers(base, 2, [(1, 1)], [(1, 1)])]
+    [(1, (0,)), (1, (0,)), (1, (0,))]
+    """
     specs = special_points(base)
     for choice in balanced_choices(base, degree, profiles):
-        yield from _gluings(base, specs, choice)
+        for cover in _gluings(base, specs, choice, marks):
+            yield cover
 
 
 def balanced_choices(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]]) -> Iterator[list[LocalCover]]:
@@ -253,8 +271,10 @@ class _Matcher:
         return False
 
 
-def _gluings(base: CurveGraph, specs: list, choice: list[LocalCover]) -> Iterator[GluedCover]:
+def _gluings(base: CurveGraph, specs: list, choice: list[LocalCover],
+             marks: Sequence[tuple[int, int]] = ()) -> Iterator[GluedCover]:
     m = _Matcher(base, specs, choice)
+    candidates = _mark_candidates(base, specs, m, marks)
     edge_profiles = tuple(
         choice[base.nodes[k][0]].profiles[_half_index(specs, base.nodes[k][0], k, 0)]
         for k in range(base.n_nodes)
@@ -268,7 +288,53 @@ def _gluings(base: CurveGraph, specs: list, choice: list[LocalCover]) -> Iterato
         if code in seen:
             continue
         seen.add(code)
-        yield _record(m, code, aut, mult, edge_profiles)
+        record = _record(m, code, aut, mult, edge_profiles)
+        yield from _marked(m, record, candidates) if marks else (record,)
+
+
+def _mark_candidates(base: CurveGraph, specs: list, m: "_Matcher", marks) -> list[list]:
+    """Per leg ``(J, e)``: the ports ``(piece, point, cycle)`` that are points of
+    index ``e`` over branch point ``J``."""
+    where = {s[1]: (v, p) for v, spec in enumerate(specs) for p, s in enumerate(spec) if s[0] == "leg"}
+    out = []
+    for point, index in marks:
+        v, p = where[point]
+        out.append([(i, p, c) for i in range(len(m.pieces)) if m.vertex[i] == v
+                    for c, cyc in enumerate(piece_cycles(m.pieces[i], p)) if len(cyc) == index])
+    return out
+
+
+def _labellings(candidates: list[list]) -> Iterator[tuple]:
+    """Injective choices of one candidate per leg."""
+    chosen: list = []
+
+    def rec(k: int) -> Iterator[tuple]:
+        if k == len(candidates):
+            yield tuple(chosen)
+            return
+        for port in candidates[k]:
+            if port not in chosen:
+                chosen.append(port)
+                yield from rec(k + 1)
+                chosen.pop()
+
+    yield from rec(0)
+
+
+def _marked(m: "_Matcher", record: GluedCover, candidates: list[list]) -> Iterator[GluedCover]:
+    """The marked covers over one cover: labellings up to ``Aut f``; checks the
+    orbit count ``sum |Aut f| / |Aut(f, marks)| = #labellings``."""
+    found: dict[tuple, tuple[int, tuple]] = {}
+    total = 0
+    for ports in _labellings(candidates):
+        total += 1
+        code, aut = canonical_code(m.glued, ports)
+        if code not in found:
+            found[code] = (aut, tuple(i for i, _, _ in ports))
+    if sum(Fraction(record.automorphisms, aut) for aut, _ in found.values()) != total:
+        raise IdentityError(f"marked covers over one cover do not add up to its {total} labellings")
+    for code, (aut, legs) in sorted(found.items()):
+        yield replace(record, code=code, automorphisms=aut, source_legs=legs)
 
 
 def _record(m: _Matcher, code: tuple, aut: int, mult: int, edge_profiles: tuple) -> GluedCover:

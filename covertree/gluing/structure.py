@@ -72,8 +72,13 @@ def least_cycles(piece: Piece, p: int) -> tuple[int, ...]:
     return tuple(c for c, cy in enumerate(cyc) if c == min(where[g[cy[0]]] for g in piece.centraliser))
 
 
-def canonical_code(glued: Glued) -> tuple[tuple, int]:
+def canonical_code(glued: Glued, marks: tuple[Port, ...] = ()) -> tuple[tuple, int]:
     """The canonical code of a connected glued structure and ``|Aut|``.
+
+    With ``marks`` (one ``(piece, special point, cycle)`` per leg of the
+    source, the cycle of ``s_p`` that is the marked point) the code ends with
+    the marked points in the relabelled structure, and the automorphisms are
+    those keeping every marked point: the code of the marked cover.
 
     The code is ``(heads, links)``: the vertex and relabelled permutations of
     every piece in the order reached, then every port's partner.  Heads are
@@ -88,7 +93,7 @@ def canonical_code(glued: Glued) -> tuple[tuple, int]:
     """
     best: list = [None, 0]
     for i in _start_pieces(glued):
-        _Walk(glued, i).run(best)
+        _Walk(glued, i, marks).run(best)
     return best[0], best[1]
 
 
@@ -131,11 +136,28 @@ def _view(piece: Piece, halves: tuple[int, ...], entry: int) -> tuple[tuple, dic
     return head, least, tuple(scan)
 
 
+@lru_cache(maxsize=65536)
+def _least_label(piece: Piece, entry: int, p: int, c: int) -> int:
+    """The least breadth-first label (from ``entry``) on cycle ``c`` of ``s_p``."""
+    order = [entry]
+    seen = {entry}
+    for x in order:
+        for perm in piece.gens:
+            y = perm[x]
+            if y not in seen:
+                seen.add(y)
+                order.append(y)
+    pos = {x: n for n, x in enumerate(order)}
+    return min(pos[x] for x in piece_cycles(piece, p)[c])
+
+
 class _Walk:
     """Depth-first search over the entry choices from one start piece."""
 
-    def __init__(self, glued: Glued, start: int) -> None:
+    def __init__(self, glued: Glued, start: int, marks: tuple[Port, ...] = ()) -> None:
         self.g = glued
+        self.marks = marks
+        self.entries: list[int] = []
         self.queue = [start]
         self.cands = [list(range(glued.pieces[start].degree))]
         self.reached = [False] * len(glued.pieces)
@@ -157,8 +179,10 @@ class _Walk:
             self.heads.append((self.g.vertex[j], view[0]))
             if best[0] is None or tuple(self.heads) <= best[0][0][:t + 1]:
                 self.views.append(view)
+                self.entries.append(entry)
                 added = self._reach(j, view[2])
                 self.run(best)
+                self.entries.pop()
                 for j2 in self.queue[len(self.queue) - added:]:
                     self.reached[j2] = False
                 del self.queue[len(self.queue) - added:]
@@ -189,6 +213,9 @@ class _Walk:
                 r = rank[j2]
                 links += (r, q, views[r][1][(q, c2)])
         code = (tuple(self.heads), tuple(links))
+        if self.marks:
+            code += (tuple((rank[j], p, _least_label(self.g.pieces[j], self.entries[rank[j]], p, c))
+                           for j, p, c in self.marks),)
         if best[0] is None or code < best[0]:
             best[0], best[1] = code, 1
         elif code == best[0]:

@@ -53,7 +53,7 @@ from __future__ import annotations
 from covertree.errors import GraphError, NotationError
 from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 
-__all__ = ["format_graph", "parse_graph"]
+__all__ = ["format_graph", "graph_parts", "parse_graph"]
 
 
 def format_graph(g: CurveGraph) -> str:
@@ -121,6 +121,19 @@ def parse_graph(text: str) -> CurveGraph:
             graph.vertex_genera, graph.nodes, graph.vertex_legs, graph.key, graph._aut_v
         )
     return graph
+
+
+def graph_parts(text: str) -> tuple[list[int], list[list[int]], list[tuple[int, int]]]:
+    """The vertices (genera, legs) and edges of a notation in the order
+    written, not canonically reordered (for pictures that keep the user's
+    numbering); the notation is checked as by :func:`parse_graph`.
+
+    >>> graph_parts("g1, g0{2,1} | 1-0, 1-1")
+    ([1, 0], [[], [2, 1]], [(1, 0), (1, 1)])
+    """
+    parse_graph(text)
+    genera, legs, edges = _Parser(text).graph()
+    return genera, legs, edges
 
 
 class _Parser:

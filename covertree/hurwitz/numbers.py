@@ -27,6 +27,12 @@ degree and ``H = T(d; mu) / d!``.  Sub-problems are memoised on the target
 genus, the degree and the sorted list of sub-profiles, so every sub-degree is
 computed once and shares the memoised character columns.
 
+Above degree :data:`SPARSE_DEGREE`, when the profiles are simple, unramified or
+close to it (:func:`covertree.hurwitz.sparse.is_sparse`), the same numbers come
+from :mod:`covertree.hurwitz.sparse` instead: content sums and hook products
+over partitions streamed one at a time, no character table, memory polynomial
+in the degree.
+
 Converting to other conventions (never mix them):
 
 * unordered branch points: divide by the symmetry of the list of profiles,
@@ -61,12 +67,16 @@ from math import comb, factorial, prod
 
 from covertree.errors import ProblemError, ProfileError
 from covertree.hurwitz.problem import HurwitzProblem, _check_degree
+from covertree.hurwitz.sparse import is_sparse, sparse_tuple_counts
 from covertree.symmetric.characters import central_characters, dimensions
 from covertree.symmetric.partitions import Partition, difference, sub_partitions
 
 __all__ = ["disconnected_hurwitz", "connected_hurwitz", "hurwitz_numbers", "tuple_counts"]
 
 Profiles = tuple[tuple[int, ...], ...]
+
+#: above this degree, sparse profiles go to :mod:`covertree.hurwitz.sparse`
+SPARSE_DEGREE = 30
 
 
 def _normalise(degree: int, target_genus: int, profiles: Sequence[Sequence[int]]) -> Profiles:
@@ -131,15 +141,9 @@ def _splits(groups: list[tuple[tuple[int, ...], int]], k: int):
     so many simple points cost a handful of cases, not ``2^b``."""
     per_group = []
     for mu, count in groups:
-        options = [(tuple(nu), tuple(difference(mu, nu))) for nu in sub_partitions(mu, k)]
-        if not options:
+        choices = _group_choices(mu, count, k)
+        if not choices:
             return
-        choices = []
-        for combo in combinations_with_replacement(range(len(options)), count):
-            ways = factorial(count)
-            for c in Counter(combo).values():
-                ways //= factorial(c)
-            choices.append((ways, [options[i] for i in combo]))
         per_group.append(choices)
     for pick in product(*per_group):
         weight = prod(ways for ways, _ in pick)
@@ -147,6 +151,21 @@ def _splits(groups: list[tuple[tuple[int, ...], int]], k: int):
         inside = tuple(sorted(nu for nu, _ in pairs))
         outside = tuple(sorted(rest for _, rest in pairs))
         yield weight, inside, outside
+
+
+@lru_cache(maxsize=4096)
+def _group_choices(mu: tuple[int, ...], count: int, k: int) -> tuple:
+    """For ``count`` points of profile ``mu``: ``(ways, [(nu, mu - nu)...])``
+    over the multisets of sub-multisets ``nu`` of size ``k`` (memoised: the
+    same profiles recur across sub-degrees and calls)."""
+    options = [(tuple(nu), tuple(difference(mu, nu))) for nu in sub_partitions(mu, k)]
+    choices = []
+    for combo in combinations_with_replacement(range(len(options)), count):
+        ways = factorial(count)
+        for c in Counter(combo).values():
+            ways //= factorial(c)
+        choices.append((ways, [options[i] for i in combo]))
+    return tuple(choices)
 
 
 def tuple_counts(
@@ -160,6 +179,13 @@ def tuple_counts(
     (15, 16)
     """
     key = _normalise(degree, target_genus, profiles)
+    return _counts(degree, target_genus, key)
+
+
+def _counts(degree: int, target_genus: int, key: Profiles) -> tuple[int, int]:
+    # (T, N) by the sparse engine at high degree when it applies, else by the table
+    if degree > SPARSE_DEGREE and is_sparse(key):
+        return sparse_tuple_counts(degree, target_genus, key)
     return _transitive(target_genus, degree, key), _tuples(target_genus, degree, key)
 
 
@@ -179,6 +205,8 @@ def disconnected_hurwitz(
     Fraction(2, 1)
     """
     key = _normalise(degree, target_genus, profiles)
+    if degree > SPARSE_DEGREE and is_sparse(key):
+        return Fraction(sparse_tuple_counts(degree, target_genus, key)[1], factorial(degree))
     return Fraction(_tuples(target_genus, degree, key), factorial(degree))
 
 
@@ -199,7 +227,7 @@ def connected_hurwitz(
     Fraction(15, 2)
     """
     key = _normalise(degree, target_genus, profiles)
-    return Fraction(_transitive(target_genus, degree, key), factorial(degree))
+    return Fraction(_counts(degree, target_genus, key)[0], factorial(degree))
 
 
 def hurwitz_numbers(problem: HurwitzProblem) -> tuple[Fraction, Fraction]:
@@ -210,5 +238,6 @@ def hurwitz_numbers(problem: HurwitzProblem) -> tuple[Fraction, Fraction]:
     >>> hurwitz_numbers(p)
     (Fraction(2, 1), Fraction(2, 1))
     """
-    args = (problem.degree, problem.target_genus, problem.profiles)
-    return connected_hurwitz(*args), disconnected_hurwitz(*args)
+    transitive, total = tuple_counts(problem.degree, problem.target_genus, problem.profiles)
+    fact = factorial(problem.degree)
+    return Fraction(transitive, fact), Fraction(total, fact)

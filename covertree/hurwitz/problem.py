@@ -22,6 +22,7 @@ from collections.abc import Iterable, Sequence
 from dataclasses import dataclass
 
 from covertree.errors import ProblemError, ProfileError
+from covertree.hurwitz.marks import MarkError, legs_from_specs
 from covertree.symmetric.partitions import Partition, simple
 
 
@@ -71,14 +72,18 @@ class HurwitzProblem:
     """A Hurwitz problem with every profile filled in.
 
     Use :meth:`build` to fill in simple branch points from a genus.  Attributes
-    are ``genus`` (source), ``target_genus``, ``degree`` and ``profiles`` (one
-    :class:`Partition` per labelled branch point, in order).
+    are ``genus`` (source), ``target_genus``, ``degree``, ``profiles`` (one
+    :class:`Partition` per labelled branch point, in order) and ``marks``: the
+    legs of the source, one ``(J, e)`` per leg in leg order, a point of index
+    ``e`` over branch point ``J`` (:mod:`covertree.hurwitz.marks`; empty for
+    an unmarked source).
     """
 
     genus: int
     target_genus: int
     degree: int
     profiles: tuple[Partition, ...]
+    marks: tuple[tuple[int, int], ...] = ()
 
     def __post_init__(self) -> None:
         _check_degree(self.degree)
@@ -98,6 +103,20 @@ class HurwitzProblem:
                 "stable (need 2h - 2 + b > 0); mark an unramified point with profile "
                 f"1^{self.degree} to count unramified covers"
             )
+        self._check_marks()
+
+    def _check_marks(self) -> None:
+        object.__setattr__(self, "marks", tuple((int(j), int(e)) for j, e in self.marks))
+        for j, e in self.marks:
+            if not 1 <= j <= len(self.profiles) or e not in self.profiles[j - 1]:
+                raise MarkError(f"mark ({j}, {e}) names no point: need a branch point 1 .. {len(self.profiles)} "
+                                "and an index in its profile")
+        for j, e in set(self.marks):
+            if self.marks.count((j, e)) > tuple(self.profiles[j - 1]).count(e):
+                raise MarkError(f"{self.marks.count((j, e))} legs of index {e} over branch point {j}; "
+                                f"its profile {self.profiles[j - 1]} has fewer such points")
+        if list(self.marks) != sorted(self.marks, key=lambda m: (m[0], -m[1])):
+            raise MarkError("marks must be in leg order: by branch point, then by decreasing index")
 
     @classmethod
     def build(
@@ -106,13 +125,28 @@ class HurwitzProblem:
         target_genus: int,
         genus: int | None = None,
         profiles: Iterable[Partition | str | Iterable[int]] = (),
+        marks: Iterable[str] = (),
     ) -> "HurwitzProblem":
         """Fill in simple branch points (after the given ones) to reach ``genus``;
         with ``genus=None`` the profiles are complete and the genus is derived.
+        ``marks`` are ``--mark`` specifications (:mod:`covertree.hurwitz.marks`),
+        read after the fill-in.
 
         >>> HurwitzProblem.build(3, 0, genus=0, profiles=["3"]).profiles
         (Partition(3), Partition(2, 1), Partition(2, 1))
+        >>> HurwitzProblem.build(2, 0, genus=2, marks=["1"]).marks
+        ((1, 2),)
         """
+        plain = cls._build(degree, target_genus, genus, profiles)
+        marks = list(marks)
+        if not marks:
+            return plain
+        legs = legs_from_specs([tuple(p) for p in plain.profiles], marks)
+        return cls(plain.genus, plain.target_genus, plain.degree, plain.profiles, legs)
+
+    @classmethod
+    def _build(cls, degree: int, target_genus: int, genus: int | None,
+               profiles: Iterable[Partition | str | Iterable[int]]) -> "HurwitzProblem":
         _check_degree(degree)
         given = [_as_partition(p) for p in profiles]
         for mu in given:
@@ -139,14 +173,27 @@ class HurwitzProblem:
         """Number of labelled branch points ``b``."""
         return len(self.profiles)
 
+    @property
+    def n_marks(self) -> int:
+        """Number of legs ``n`` of the source (marked points)."""
+        return len(self.marks)
+
+    def unmarked(self) -> "HurwitzProblem":
+        """The same problem without marks."""
+        return HurwitzProblem(self.genus, self.target_genus, self.degree, self.profiles)
+
     def to_dict(self) -> dict:
-        """``{"genus", "target_genus", "degree", "profiles"}`` for JSON output."""
-        return {
+        """``{"genus", "target_genus", "degree", "profiles"}`` for JSON output,
+        and ``"marks"`` (``[J, e]`` per leg) when the source is marked."""
+        out = {
             "genus": self.genus,
             "target_genus": self.target_genus,
             "degree": self.degree,
             "profiles": [list(p) for p in self.profiles],
         }
+        if self.marks:
+            out["marks"] = [list(m) for m in self.marks]
+        return out
 
 
 def _check_degree(degree: int) -> None:

@@ -45,7 +45,7 @@ points (``8!`` labellings of the branch points):
 from __future__ import annotations
 
 from collections.abc import Mapping
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from fractions import Fraction
 from itertools import combinations_with_replacement
 from math import factorial, prod
@@ -74,7 +74,9 @@ class CheckRow:
 @dataclass(frozen=True)
 class LocusClass:
     """The class of a divisorial Hurwitz locus (labelled branch points), its
-    unordered version, and the tests that determine it."""
+    unordered version, and the tests that determine it.  For a marked source
+    (:mod:`covertree.locus.marked`) ``basis`` names the generators solved
+    for and ``relations`` expresses each other generator in them."""
 
     problem: HurwitzProblem
     dimension: int
@@ -82,6 +84,8 @@ class LocusClass:
     unordered: dict[str, Fraction]
     symmetry: int
     tests: tuple[CheckRow, ...]
+    basis: tuple[str, ...] = ()
+    relations: dict = field(default_factory=dict)
 
     @property
     def consistent(self) -> bool:
@@ -142,6 +146,10 @@ def locus_class(problem: HurwitzProblem, engine: str = "types", progress=None) -
     IdentityError
         When the overdetermined system is inconsistent or degenerate (a bug).
     """
+    if problem.marks:
+        from covertree.locus.marked import marked_locus_class
+
+        return marked_locus_class(problem, engine, progress)
     n = cover_space_dimension(problem)
     if problem.genus < 2 or n != 3 * problem.genus - 4:
         raise ProblemError(
@@ -188,6 +196,8 @@ def family_number(result: LocusClass, degrees: Mapping[str, Fraction], unordered
     InputError
         For a missing or unknown class, or an inconsistent genus-2 family.
     """
+    if result.basis:
+        return _marked_family_number(result, degrees, unordered)
     basis = divisor_basis(result.problem.genus)
     allowed = set(basis) | {"lambda"}
     unknown = sorted(set(degrees) - allowed)
@@ -202,3 +212,29 @@ def family_number(result: LocusClass, degrees: Mapping[str, Fraction], unordered
             raise InputError("a genus-2 family has 10 lambda = delta_0 + 2 delta_1; the degrees given do not")
     coefficients = result.unordered if unordered else result.labelled
     return sum((coefficients[b] * Fraction(degrees[b]) for b in basis), Fraction(0))
+
+
+def _marked_family_number(result: LocusClass, degrees: Mapping[str, Fraction], unordered: bool) -> Fraction:
+    """:func:`family_number` for a marked source: every basis class must be
+    given; another generator may be given when it obeys its relation."""
+    names = tuple(result.labelled)
+    space = f"Mbar_{{{result.problem.genus},{result.problem.n_marks}}}"
+    unknown = [k for k in degrees if k not in names]
+    if unknown:
+        raise InputError(f"family class {unknown[0]!r} is not a class of {space}; allowed: {', '.join(names)}")
+    missing = [b for b in result.basis if b not in degrees]
+    if missing:
+        raise InputError(f"the family needs the degree of {missing[0]} (give every one of {', '.join(result.basis)})")
+    for name, combination in result.relations.items():
+        if name in degrees:
+            implied = sum((c * Fraction(degrees[b]) for b, c in combination.items()), Fraction(0))
+            if Fraction(degrees[name]) != implied:
+                raise InputError(f"on {space} {name} = {_combination_text(combination)}; the family's degree of "
+                                 f"{name} should be {implied}, not {Fraction(degrees[name])}")
+    coefficients = result.unordered if unordered else result.labelled
+    return sum((coefficients[b] * Fraction(degrees[b]) for b in result.basis), Fraction(0))
+
+
+def _combination_text(combination: Mapping[str, Fraction]) -> str:
+    text = " ".join(f"{'-' if c < 0 else '+'} {abs(c)} {b}" for b, c in combination.items() if c)
+    return (text[2:] if text.startswith("+ ") else text) or "0"

@@ -38,7 +38,7 @@ nodes form a rational bridge, one non-separating stable node smoothed to order
 >>> [c] = stratum_covers(parse_graph("g0{1,2}, g0{3,4,5,6} | 0-1"), 2, [(2,)] * 6)
 >>> data = edge_data(c.raw.source_genera, cover_edges(c), 1, 2)
 >>> data
-(EdgeData(lcm=1, all_nodes=2, deltas=(2, 0)),)
+(EdgeData(lcm=1, all_nodes=2, deltas=(2, 0), psis=()),)
 """
 
 from __future__ import annotations
@@ -48,6 +48,7 @@ from dataclasses import dataclass
 from fractions import Fraction
 from math import lcm, prod
 
+from covertree.catalogue.covers import legs_per_vertex
 from covertree.catalogue.local_structure import node_type
 from covertree.errors import IdentityError
 from covertree.stabilisation.stabilise import stabilise
@@ -68,13 +69,22 @@ class EdgeData:
     all_nodes : int
         ``sum_{x over q} L_q/e_x``: order of the node locus of the prestable source.
     deltas : tuple of int
-        Coefficient of ``[u_q = 0]`` in ``src^* delta_j`` for ``j = 0 .. G//2``
-        (empty when the source genus is below 2).
+        Coefficient of ``[u_q = 0]`` in ``src^* delta`` for each boundary
+        divisor of the source space, in the order of
+        :func:`covertree.catalogue.pullback.boundary_divisors` (``delta_0 ..
+        delta_{G//2}`` unmarked; empty when there is no such space).
+    psis : tuple of int
+        For a marked source, per leg ``k``: the coefficient ``c`` of ``[u_q =
+        0]`` in ``src^* psi_k = psi_x - c [u_q = 0] - ...``, the sum of ``L_q/e``
+        over the source nodes over ``q`` that the leg crossed when
+        stabilisation contracted the rational tree carrying it (``psi_x =
+        br^* psi_J / e_x`` being psi of the marked point on the prestable source).
     """
 
     lcm: int
     all_nodes: int
     deltas: tuple[int, ...]
+    psis: tuple[int, ...] = ()
 
 
 @dataclass(frozen=True)
@@ -93,38 +103,55 @@ def cover_edges(cover) -> tuple[SourceEdge, ...]:
 
 
 def edge_data(genera: Sequence[int], edges: Sequence[SourceEdge], n_base_edges: int,
-              genus: int) -> tuple[EdgeData, ...]:
-    """Per base node, the data of the module docstring for one source."""
+              genus: int, carriers: Sequence[int] = ()) -> tuple[EdgeData, ...]:
+    """Per base node, the data of the module docstring for one source;
+    ``carriers`` gives the component carrying each leg of a marked source."""
     lcms = [1] * n_base_edges
     for _, _, q, e in edges:
         lcms[q] = lcm(lcms[q], e)
     all_nodes = [0] * n_base_edges
     for _, _, q, e in edges:
         all_nodes[q] += lcms[q] // e
-    n_types = genus // 2 + 1 if genus >= 2 else 0
-    deltas = [[0] * n_types for _ in range(n_base_edges)]
-    if n_types:
-        stab = stabilise(genera, [(a, b) for a, b, _, _ in edges])
-        for n, chain in enumerate(stab.chains):
-            j = _type_index(node_type(stab.genera, stab.edges, n))
+    names = _divisor_names(genus, len(carriers))
+    deltas = [[0] * len(names) for _ in range(n_base_edges)]
+    psis = [[0] * len(carriers) for _ in range(n_base_edges)]
+    if names or carriers:
+        legs = legs_per_vertex(len(genera), carriers)
+        stab = stabilise(genera, [(a, b) for a, b, _, _ in edges], legs)
+        for n, chain in enumerate(stab.chains if names else ()):
+            j = _type_index(node_type(stab.genera, stab.edges, n, stab.legs), names)
             for s in chain:
                 _, _, q, e = edges[s]
                 deltas[q][j] += lcms[q] // e
-    return tuple(EdgeData(lcms[q], all_nodes[q], tuple(deltas[q])) for q in range(n_base_edges))
+        for k, path in enumerate(stab.leg_paths):
+            for s in path:
+                _, _, q, e = edges[s]
+                psis[q][k] += lcms[q] // e
+    return tuple(EdgeData(lcms[q], all_nodes[q], tuple(deltas[q]), tuple(psis[q])) for q in range(n_base_edges))
 
 
-def _type_index(kind: str | None) -> int:
-    if kind is None or not kind.startswith("delta_"):  # pragma: no cover - a bug
+def _divisor_names(genus: int, n: int) -> tuple[str, ...]:
+    from covertree.catalogue.pullback import boundary_divisors
+    from covertree.errors import ProblemError
+
+    try:
+        return tuple(boundary_divisors(genus, n))
+    except ProblemError:
+        return ()
+
+
+def _type_index(kind: str | None, names: Sequence[str]) -> int:
+    if kind not in names:  # pragma: no cover - a bug
         raise IdentityError(f"stable node of unknown type {kind!r}")
-    return int(kind[len("delta_"):])
+    return names.index(kind)
 
 
-def grouped(items: Iterable[tuple[Sequence[int], Sequence[SourceEdge], Fraction]], n_base_edges: int,
-            genus: int) -> tuple[CoverKey, ...]:
-    """Group ``(genera, edges, mult/|Aut| weight)`` items by their edge data;
+def grouped(items: Iterable[tuple], n_base_edges: int, genus: int) -> tuple[CoverKey, ...]:
+    """Group ``(genera, edges, mult/|Aut| weight)`` items (with a fourth
+    entry, the leg carriers, for a marked source) by their edge data;
     weights become stratum weights (divided by ``prod_q L_q``); sorted."""
     tally: dict[tuple[EdgeData, ...], Fraction] = {}
-    for genera, edges, weight in items:
-        key = edge_data(genera, edges, n_base_edges, genus)
+    for genera, edges, weight, *rest in items:
+        key = edge_data(genera, edges, n_base_edges, genus, rest[0] if rest else ())
         tally[key] = tally.get(key, Fraction(0)) + Fraction(weight) / prod(d.lcm for d in key)
     return tuple(CoverKey(k, w) for k, w in sorted(tally.items()))

@@ -119,14 +119,31 @@ def cover_space_dimension(problem: HurwitzProblem) -> int:
     return 3 * problem.target_genus - 3 + problem.points
 
 
+def source_divisors(problem: HurwitzProblem) -> tuple[str, ...]:
+    """The boundary divisors of the source space (``Mbar_G`` or ``Mbar_{G,n}``);
+    empty when there is none."""
+    from covertree.catalogue.pullback import boundary_divisors
+
+    try:
+        return tuple(boundary_divisors(problem.genus, problem.n_marks))
+    except ProblemError:
+        return ()
+
+
 def check_monomials(problem: HurwitzProblem, source: Monomial, target: Monomial) -> None:
     """Raise :class:`MonomialError` for a class the problem lacks or a wrong degree."""
+    names = source_divisors(problem)
     for name in source.names():
-        if name.startswith("delta_"):
-            j = int(name[len("delta_"):])
-            if problem.genus < 2 or j > problem.genus // 2:
-                raise MonomialError(f"source factor {name} does not exist for source genus {problem.genus}; "
-                                    f"allowed: delta_0 .. delta_{problem.genus // 2} (genus >= 2)")
+        if name.startswith("delta_") and name not in names:
+            if problem.n_marks:
+                raise MonomialError(f"source factor {name} is not a boundary divisor of "
+                                    f"Mbar_{{{problem.genus},{problem.n_marks}}}; allowed: {', '.join(names) or 'none'}")
+            raise MonomialError(f"source factor {name} does not exist for source genus {problem.genus}; "
+                                f"allowed: delta_0 .. delta_{problem.genus // 2} (genus >= 2)")
+        if name.startswith("psi_") and int(name[len("psi_"):]) > problem.n_marks:
+            raise MonomialError(f"source factor {name} names no leg of the source; "
+                                + (f"allowed: psi_1 .. psi_{problem.n_marks}" if problem.n_marks
+                                   else "mark points with --mark to use psi classes of the source"))
     for name in target.names():
         if name.startswith("psi_") and int(name[len("psi_"):]) > problem.points:
             raise MonomialError(f"target factor {name} names no branch point; allowed: psi_1 .. psi_{problem.points}")
@@ -175,9 +192,10 @@ def cover_space_integrals(problem: HurwitzProblem, monomials: Sequence[tuple[Mon
     if (problem.target_genus == 0 and problem.points < 3) or (problem.target_genus == 1 and problem.points < 1):
         raise ProblemError(f"the target space Mbar_{{{problem.target_genus},{problem.points}}} is not stable; "
                            "there is no cover space to integrate over")
-    jobs = [[_Factor(problem, n, p) for n, p in s.factors + t.factors] for s, t in monomials]
+    jobs = [[_Factor(problem, n, p, True) for n, p in s.factors] + [_Factor(problem, n, p) for n, p in t.factors]
+            for s, t in monomials]
     max_codim = max((sum(f.power for f in job if f.has_boundary) for job in jobs), default=0)
-    labeled = any(n.startswith("psi_") for _, t in monomials for n in t.names())
+    labeled = any(n.startswith("psi_") for s, t in monomials for n in s.names() + t.names())
     hurwitz = problem_hurwitz(problem)
     totals = [Fraction(0)] * len(jobs)
     strata = select_strata(problem, max_codim, None, labeled)
@@ -211,30 +229,40 @@ def _items_types(problem: HurwitzProblem, base: BaseStratum) -> Iterator:
     from covertree.tallies.types import tally_stratum
 
     for entry in tally_stratum(problem, base).entries:
-        yield entry.genera, entry.edges, entry.weight
+        yield entry.genera, entry.edges, entry.weight, entry.legs
 
 
 def _items_list(problem: HurwitzProblem, base: BaseStratum) -> Iterator:
-    for cover in stratum_covers(base.graph, problem.degree, [tuple(p) for p in problem.profiles]):
-        yield cover.raw.source_genera, cover_edges(cover), cover.weight
+    for cover in stratum_covers(base.graph, problem.degree, [tuple(p) for p in problem.profiles], problem.marks):
+        yield cover.raw.source_genera, cover_edges(cover), cover.weight, cover.raw.source_legs
 
 
 class _Factor:
     """One class of the monomial with its power: base part and boundary part."""
 
-    def __init__(self, problem: HurwitzProblem, name: str, power: int) -> None:
+    def __init__(self, problem: HurwitzProblem, name: str, power: int, source: bool = False) -> None:
         self.name, self.power, self.problem = name, power, problem
-        self.has_boundary = name == "lambda" or name.startswith("delta_")
+        self.source_psi = source and name.startswith("psi_")
+        self.has_boundary = name == "lambda" or name.startswith("delta_") or self.source_psi
         self.has_base = not name.startswith("delta_")
+        if name.startswith("delta_"):
+            self.index = source_divisors(problem).index(name)
+        if self.source_psi:
+            self.leg = int(name[len("psi_"):])
 
     def boundary(self, data: EdgeData) -> Fraction:
         if self.name == "lambda":
             return Fraction(data.all_nodes, 12)
-        return Fraction(data.deltas[int(self.name[len("delta_"):])])
+        if self.source_psi:
+            return -Fraction(data.psis[self.leg - 1])
+        return Fraction(data.deltas[self.index])
 
     def base(self, ring: VertexRing) -> Linear:
         if self.name == "kappa":
             return ring.kappa()
+        if self.source_psi:
+            point, index = self.problem.marks[self.leg - 1]
+            return tuple((i, c / index) for i, c in ring.leg_psi(point))
         if self.name.startswith("psi_"):
             return ring.leg_psi(int(self.name[len("psi_"):]))
         d = self.problem.degree
@@ -324,7 +352,7 @@ def _stratum_sum(ring: VertexRing, keys: Sequence[CoverKey], factors: Sequence[_
 
 def _pattern_integral(ring: VertexRing, factors: Sequence[_Factor], dist: _Distribution, cache: dict) -> Fraction:
     """``\\int_{M_T} prod_q N_q^{m_q - 1} prod_r base_r^{n_r}`` (memoised)."""
-    pattern = (dist.per_node, tuple((f.name, n) for f, n in zip(factors, dist.base) if n))
+    pattern = (dist.per_node, tuple((f.name, f.source_psi, n) for f, n in zip(factors, dist.base) if n))
     if pattern not in cache:
         forms: list[Linear] = []
         for q, m in enumerate(dist.per_node):

@@ -7,9 +7,16 @@ class name with an optional power ``^k`` (``k >= 1``):
   ``lambda`` (the first Chern class of the Hodge bundle) and ``delta_i``
   (``delta_0`` the irreducible divisor, ``delta_i`` for ``1 <= i <= G/2`` the
   divisor of curves with a separating node splitting off genus ``i``);
+- for a marked source (legs ``1..n``, landing in ``Mbar_{G,n}``) also the
+  source classes ``psi_k`` (``k`` a leg of the source) and the boundary
+  divisors ``delta_i_{a,b,...}`` of :mod:`covertree.intersection.boundary`
+  (written without spaces);
 - target classes (pulled back from ``Mbar_{H,b}`` by the branch map):
   ``psi_j`` (``j`` a branch point label, ``1..b``) and ``kappa`` (``kappa_1``
   of Arbarello–Cornalba).
+
+A ``psi`` factor is a source class in a source monomial and a target class
+in a target monomial (the two monomials are always given apart).
 
 The empty string and ``1`` are the unit monomial.  A monomial is a small
 immutable value: factors sorted, powers merged, so equal monomials compare
@@ -41,10 +48,10 @@ __all__ = ["Monomial", "MonomialError", "SOURCE", "TARGET"]
 SOURCE = "source"
 TARGET = "target"
 
-_FACTOR = re.compile(r"([A-Za-z_]+[0-9]*)(?:\^([0-9]+))?$")
+_FACTOR = re.compile(r"([A-Za-z_]+[0-9]*(?:_\{[0-9,]*\})?)(?:\^([0-9]+))?$")
 _TOKEN = re.compile(r"[^\s*]+")
 _ALLOWED = {
-    SOURCE: "lambda, delta_i (i = 0 .. G/2)",
+    SOURCE: "lambda, delta_i (i = 0 .. G/2); with marks psi_k (k a leg) and delta_i_{a,b,...}",
     TARGET: "psi_j (j a branch point), kappa",
 }
 _MAX_POWER = 1000
@@ -54,18 +61,28 @@ class MonomialError(InputError):
     """A monomial cannot be parsed or names a class that does not exist."""
 
 
+def _kinds_of(name: str) -> tuple[str, ...]:
+    """The kinds a class name can have (``psi_j`` is either)."""
+    if name == "lambda" or re.fullmatch(r"delta_(0|[1-9][0-9]*)(_\{([1-9][0-9]*(,[1-9][0-9]*)*)?\})?", name):
+        return (SOURCE,)
+    if re.fullmatch(r"psi_[1-9][0-9]*", name):
+        return (TARGET, SOURCE)
+    if name == "kappa":
+        return (TARGET,)
+    return ()
+
+
 def _kind_of(name: str) -> str | None:
-    if name == "lambda" or re.fullmatch(r"delta_(0|[1-9][0-9]*)", name):
-        return SOURCE
-    if name == "kappa" or re.fullmatch(r"psi_[1-9][0-9]*", name):
-        return TARGET
-    return None
+    kinds = _kinds_of(name)
+    return kinds[0] if kinds else None
 
 
 def _sort_key(name: str) -> tuple:
     head, _, tail = name.partition("_")
     order = {"lambda": 0, "delta": 1, "psi": 2, "kappa": 3}[head]
-    return (order, int(tail) if tail else -1)
+    number, _, legs = tail.partition("_")
+    side = tuple(int(x) for x in legs.strip("{}").split(",") if x)
+    return (order, int(number) if number else -1, len(legs) > 0, side)
 
 
 @dataclass(frozen=True)
@@ -143,8 +160,8 @@ def _parse_factor(token: str, column: int, kinds: str | None) -> tuple[str, int]
             f"allowed: {_ALLOWED.get(kinds, _ALLOWED[SOURCE] + ', ' + _ALLOWED[TARGET])}"
         )
     name, power_text = match.group(1), match.group(2)
-    kind = _kind_of(name)
-    if kind is None or (kinds is not None and kind != kinds):
+    found = _kinds_of(name)
+    if not found or (kinds is not None and kinds not in found):
         what = f"a {kinds} class" if kinds else "a class"
         allowed = _ALLOWED[kinds] if kinds else f"{_ALLOWED[SOURCE]}, {_ALLOWED[TARGET]}"
         raise MonomialError(f"factor {token!r} (column {column}) is not {what}; allowed: {allowed}")

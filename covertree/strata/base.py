@@ -31,7 +31,7 @@ Six simple branch points on a rational base, codimension one: the splits
 
 from __future__ import annotations
 
-from collections.abc import Sequence
+from collections.abc import Collection, Sequence
 from dataclasses import dataclass
 
 from covertree.errors import GraphError, ProfileError
@@ -68,6 +68,7 @@ def base_strata(
     profiles: Sequence[Sequence[int]],
     max_codim: int,
     labeled: bool = False,
+    fixed: Collection[int] = (),
 ) -> list[BaseStratum]:
     """Strata of ``Mbar_{h,b}`` (``b = len(profiles)``) up to codimension ``max_codim``.
 
@@ -82,6 +83,9 @@ def base_strata(
         Largest codimension listed (capped at ``3h - 3 + b``).
     labeled : bool
         If true, every labelled stratum, each with ``orbit_size`` 1.
+    fixed : collection of int
+        Legs never permuted (branch points carrying marked points of the
+        source).
 
     Returns
     -------
@@ -100,7 +104,7 @@ def base_strata(
     >>> [(str(s.graph), s.orbit_size) for s in base_strata(0, [(2,), (2,), (1, 1), (1, 1)], 1)]
     [('g0{1,2,3,4}', 1), ('g0{1,2}, g0{3,4} | 0-1', 1), ('g0{1,3}, g0{2,4} | 0-1', 2)]
     """
-    classes = _profile_classes(profiles)
+    classes = _profile_classes(profiles, fixed)
     graphs = stable_graphs(target_genus, len(classes), max_codim)
     if labeled:
         return [BaseStratum(g, 1) for g in graphs]
@@ -110,20 +114,22 @@ def base_strata(
     return [BaseStratum(g, size) for g, size in orbits.values()]
 
 
-def _profile_classes(profiles: Sequence[Sequence[int]]) -> list[int]:
-    """The class (0-based index among the distinct profiles) of each leg."""
+def _profile_classes(profiles: Sequence[Sequence[int]], fixed: Collection[int] = ()) -> list[int]:
+    """The class (0-based index among the distinct profiles) of each leg; a
+    ``fixed`` leg is alone in its class."""
     parts = [Partition(mu) for mu in profiles]
     degrees = {mu.size for mu in parts}
     if len(degrees) > 1:
         listed = ", ".join(str(mu) for mu in parts)
         raise ProfileError(f"the profiles {listed} are not all of one degree")
-    distinct = sorted(set(parts), reverse=True)
-    return [distinct.index(mu) for mu in parts]
+    keys = [(mu, j if j in fixed else 0) for j, mu in enumerate(parts, start=1)]
+    distinct = sorted(set(keys), reverse=True)
+    return [distinct.index(k) for k in keys]
 
 
-def stratum_orbit(graph: StableCurveGraph, profiles: Sequence[Sequence[int]]) -> BaseStratum:
+def stratum_orbit(graph: StableCurveGraph, profiles: Sequence[Sequence[int]], fixed: Collection[int] = ()) -> BaseStratum:
     """The given labelled stratum with the size of its orbit under permutations
-    of equal-profile legs.
+    of equal-profile legs (other than the ``fixed`` ones).
 
     Raises
     ------
@@ -144,7 +150,7 @@ def stratum_orbit(graph: StableCurveGraph, profiles: Sequence[Sequence[int]]) ->
             f"stratum {graph.notation!r} has legs {shown}; the problem has {b} branch "
             f"point(s), so the legs must be 1..{b}"
         )
-    classes = _profile_classes(profiles)
+    classes = _profile_classes(profiles, fixed)
     target = _colour_key(graph, classes)
     same = [g for g in stable_graphs(graph.genus, b, graph.codim) if g.codim == graph.codim]
     return BaseStratum(graph, sum(1 for g in same if _colour_key(g, classes) == target))

@@ -122,11 +122,33 @@ class _Matcher:
         self.out: dict[tuple, int] = {}
 
     def run(self) -> dict[tuple, int]:
-        if self.n == 0 or self.b1 < 0:
+        if self.n == 0 or self.b1 < 0 or not self._may_connect():
             return {}
         self._reach(0)
         self._step(1)
         return self.out
+
+    def _may_connect(self) -> bool:
+        """Whether the pieces are connected when every holder of ``(k, 0, l)``
+        is joined to every holder of ``(k, 1, l)``: a matched pair joins two
+        such holders, so otherwise no matching has a connected source (the
+        usual case of pieces whose lengths at a node meet no other piece's)."""
+        parent = list(range(self.n))
+
+        def root(i: int) -> int:
+            while parent[i] != i:
+                parent[i] = parent[parent[i]]
+                i = parent[i]
+            return i
+
+        for (k, side, length), holders in self.holders.items():
+            partners = self.holders.get((k, 1 - side, length), ())
+            if side or not partners:
+                continue
+            first = root(partners[0])
+            for i in list(holders) + list(partners):
+                parent[root(i)] = first
+        return len({root(i) for i in range(self.n)}) == 1
 
     def _reach(self, i: int) -> None:
         self.is_reached[i] = True
@@ -159,12 +181,17 @@ class _Matcher:
         return out
 
     def _choose(self) -> tuple[int, Group, list] | None:
-        """The free port of a reached piece with the fewest partner orbits."""
+        """The free port of a reached piece with the fewest partner orbits.
+
+        The partner orbits of a port depend on its group only, not on its
+        piece: each group is examined once, at its first reached holder."""
         best = None
+        seen: set[Group] = set()
         for i in self.reached:
             for group, f in self.free[i].items():
-                if not f:
+                if not f or group in seen:
                     continue
+                seen.add(group)
                 options = self._options(group)
                 if best is None or len(options) < len(best[2]):
                     best = (i, group, options)

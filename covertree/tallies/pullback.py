@@ -50,7 +50,7 @@ def pullback_row_from_tally(tally: TypeTally, divisors: list[str]) -> PullbackRo
     for entry, per_branch, orders in tally.pullback_orders():
         stab = entry.stabilised
         for n, order in orders:
-            kind = node_type(stab.genera, stab.edges, n)
+            kind = node_type(stab.genera, stab.edges, n, stab.legs)
             if kind not in coefficients:
                 raise IdentityError(f"stable node of unknown type {kind!r}")
             coefficients[kind] += per_branch * order
@@ -67,7 +67,7 @@ def pullback_from_types(problem: HurwitzProblem, labeled: bool = False) -> Pullb
     ProblemError
         When the source genus is below 2.
     """
-    divisors = boundary_divisors(problem.genus)
+    divisors = boundary_divisors(problem.genus, problem.n_marks)
     rows = [pullback_row_from_tally(tally_stratum(problem, base), divisors)
             for base in select_strata(problem, 1, None, labeled) if base.codim == 1]
     return Pullback(problem, problem_hurwitz(problem), tuple(divisors), tuple(rows))

@@ -113,11 +113,13 @@ from collections.abc import Iterator, Sequence
 from dataclasses import dataclass
 from fractions import Fraction
 from functools import lru_cache
-from math import factorial, lcm, prod
+from collections import Counter
+from itertools import product
+from math import factorial, lcm, perm, prod
 
 from covertree.catalogue.catalogue import problem_hurwitz, select_strata, weight_by_graph
-from covertree.catalogue.covers import make_graph
-from covertree.errors import GraphError, IdentityError
+from covertree.catalogue.covers import legs_per_vertex, make_graph
+from covertree.errors import GraphError, IdentityError, ProblemError
 from covertree.graphs.canonical import _certify
 from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 from covertree.hurwitz.problem import HurwitzProblem
@@ -148,27 +150,31 @@ class TallyEntry:
         ``k``, piece ``j`` over side 1, ramification index ``l``.
     weight : Fraction
         Sum of ``mult(f)/|Aut f|`` over the covers with these data.
+    legs : tuple of int
+        For a marked problem, the piece carrying each leg of the source; the
+        weight is then that of the marked covers (a sum over labellings).
     """
 
     edge_profiles: tuple[Profile, ...]
     genera: tuple[int, ...]
     edges: tuple[tuple[int, int, int, int], ...]
     weight: Fraction
+    legs: tuple[int, ...] = ()
 
     @property
     def source(self) -> CurveGraph:
         """The source dual graph (often unstable)."""
-        return _graphs(self.genera, _plain(self.edges))[0]
+        return _graphs(self.genera, _plain(self.edges), self.legs)[0]
 
     @property
     def stable_source(self) -> CurveGraph:
         """The stabilised source."""
-        return _graphs(self.genera, _plain(self.edges))[1]
+        return _graphs(self.genera, _plain(self.edges), self.legs)[1]
 
     @property
     def stabilised(self) -> Stabilised:
         """The stabilisation with its chains of source nodes."""
-        return _graphs(self.genera, _plain(self.edges))[2]
+        return _graphs(self.genera, _plain(self.edges), self.legs)[2]
 
 
 def _plain(edges: Sequence[tuple[int, int, int, int]]) -> tuple[tuple[int, int], ...]:
@@ -176,9 +182,10 @@ def _plain(edges: Sequence[tuple[int, int, int, int]]) -> tuple[tuple[int, int],
 
 
 @lru_cache(maxsize=65536)
-def _graphs(genera: tuple[int, ...], edges: tuple[tuple[int, int], ...]):
-    stab = stabilise(genera, edges)
-    return make_graph(genera, edges), make_graph(stab.genera, stab.edges), stab
+def _graphs(genera: tuple[int, ...], edges: tuple[tuple[int, int], ...], carriers: tuple[int, ...] = ()):
+    legs = legs_per_vertex(len(genera), carriers)
+    stab = stabilise(genera, edges, legs)
+    return make_graph(genera, edges, legs), make_graph(stab.genera, stab.edges, stab.legs), stab
 
 
 @dataclass(frozen=True)
@@ -347,7 +354,30 @@ def _class_ids(choice) -> list[int]:
     return out
 
 
-def _choice_entries(base: StableCurveGraph, data: list[_Vertex], choice, genus: int) -> list[TallyEntry]:
+def _mark_assignments(base: StableCurveGraph, vertex: Sequence[int], shapes: Sequence[Shape],
+                      marks: Sequence[tuple[int, int]]) -> list[tuple[tuple[int, ...], int]]:
+    """Every way to put the legs ``(J, e)`` on pieces, with the number of
+    labellings of the marked points that does it: per piece and ``(J, e)``,
+    ``m! / (m - c)!`` for ``m`` points of index ``e`` over ``J`` in the piece
+    and ``c`` legs put there."""
+    position = {j: (v, legs.index(j)) for v, legs in enumerate(base.vertex_legs) for j in legs}
+    options = []
+    for point, index in marks:
+        v, p = position[point]
+        options.append([i for i, s in enumerate(shapes) if vertex[i] == v and index in s.legs[p]])
+    out = []
+    for carriers in product(*options):
+        used = Counter(zip(carriers, marks))
+        ways = 1
+        for (i, (point, index)), c in used.items():
+            ways *= perm(shapes[i].legs[position[point][1]].count(index), c)
+        if ways:
+            out.append((carriers, ways))
+    return out
+
+
+def _choice_entries(base: StableCurveGraph, data: list[_Vertex], choice, genus: int,
+                    marks: Sequence[tuple[int, int]] = ()) -> list[TallyEntry]:
     vertex = [v for v, m in enumerate(choice) for _ in m]
     shapes = [data[v].shapes[s] for v, m in enumerate(choice) for s in m]
     classes = _class_ids(choice)
@@ -360,7 +390,11 @@ def _choice_entries(base: StableCurveGraph, data: list[_Vertex], choice, genus: 
     sizes = [classes.count(c) for c in range(classes[-1] + 1)]
     coeff = Fraction(mult) * prod(s.hurwitz for s in shapes) / prod(factorial(n) for n in sizes)
     counts = count_matchings(base.nodes, vertex, [s.halves for s in shapes], classes)
-    return [TallyEntry(profiles, genera, key, coeff * n) for key, n in sorted(counts.items())]
+    if not marks:
+        return [TallyEntry(profiles, genera, key, coeff * n) for key, n in sorted(counts.items())]
+    assignments = _mark_assignments(base, vertex, shapes, marks)
+    return [TallyEntry(profiles, genera, key, coeff * n * ways, carriers)
+            for key, n in sorted(counts.items()) for carriers, ways in assignments]
 
 
 def _check_base(problem: HurwitzProblem, graph: StableCurveGraph) -> None:
@@ -399,7 +433,7 @@ def tally_stratum(problem: HurwitzProblem, base: BaseStratum) -> TypeTally:
     data = _vertex_data(base.graph, problem.degree, problem.genus, profiles)
     entries: list[TallyEntry] = []
     for choice in _choices(base.graph, data, problem.genus):
-        entries.extend(_choice_entries(base.graph, data, choice, problem.genus))
+        entries.extend(_choice_entries(base.graph, data, choice, problem.genus, problem.marks))
     return TypeTally(base, tuple(entries), problem_hurwitz(problem))
 
 
@@ -454,7 +488,8 @@ def _type_code(classes: Sequence[int], edges: Sequence[tuple[int, int, int, int]
 def iter_types(problem: HurwitzProblem, base: BaseStratum) -> Iterator[CoverType]:
     """Every type with connected source over a fixed curve of type ``base``,
     each isomorphism class once, with ``|Aut T|`` and its weight (slower than
-    :func:`tally_stratum`, which needs no automorphism groups).
+    :func:`tally_stratum`, which needs no automorphism groups).  Unmarked
+    problems only: the types of a marked problem are not listed.
 
     Examples
     --------
@@ -466,6 +501,8 @@ def iter_types(problem: HurwitzProblem, base: BaseStratum) -> Iterator[CoverType
     >>> [(t.edge_profiles, t.shapes[0].genus, t.automorphisms, str(t.weight)) for t in types]
     [(((1, 1),), 0, 2, '1'), (((2,),), 1, 1, '1')]
     """
+    if problem.marks:
+        raise ProblemError("types are listed for unmarked problems only; the tallies take the marks")
     _check_base(problem, base.graph)
     profiles = [tuple(p) for p in problem.profiles]
     data = _vertex_data(base.graph, problem.degree, problem.genus, profiles)

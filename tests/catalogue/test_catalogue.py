@@ -57,17 +57,17 @@ def test_degeneration_identity_on_every_stratum(args):
     assert cat.hurwitz_number == hurwitz
     assert cat.failures == []
     assert len(cat.strata) == len(base_strata(h, [tuple(mu) for mu in problem.profiles], k))
+    assert cat.strata
     for s in cat.strata:
         assert s.total_weight == hurwitz, s.base.graph.notation
         assert s.identity_holds
         # weight per stable source adds up to the total
         assert sum((w for _, w in s.by_source()), Fraction(0)) == s.total_weight
         for c in s.covers:
-            assert c.weight == Fraction(c.multiplicity, c.automorphisms) > 0
+            assert c.weight > 0
             assert c.source.genus == problem.genus == c.stable_source.genus
             assert len(c.edge_profiles) == s.base.graph.n_nodes
             assert all(sum(p) == d for p in c.edge_profiles)
-            assert c.multiplicity == _product(x for p in c.edge_profiles for x in p)
 
 
 def _tuple_count_hurwitz(d, types):
@@ -100,13 +100,6 @@ def test_smooth_stratum_against_tuple_count(types):
     assert connected_hurwitz(d, 0, types) == expected  # the character formula is right
     cat = build_catalogue(problem, max_codim=0)
     assert cat.strata[0].total_weight == expected
-
-
-def _product(xs):
-    out = 1
-    for x in xs:
-        out *= x
-    return out
 
 
 def test_labelled_strata_match_their_orbits():
@@ -165,6 +158,7 @@ def test_covers_sorted_deterministically():
     problem = HurwitzProblem.build(3, 1, genus=2)
     a = build_catalogue(problem, max_codim=2)
     b = build_catalogue(problem, max_codim=2)
+    assert len(a.strata) == len(b.strata) > 0
     for s, t in zip(a.strata, b.strata):
         assert [c.sort_key() for c in s.covers] == sorted(c.sort_key() for c in s.covers)
         assert [c.sort_key() for c in s.covers] == [c.sort_key() for c in t.covers]

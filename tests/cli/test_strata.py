@@ -55,9 +55,12 @@ def test_csv():
 def test_latex():
     result = run("-t", "1", "-n", "1", "-f", "latex")
     assert result.exit_code == 0
-    assert result.stdout.startswith("\\begin{tabular}")
+    # the one table style of covertree: booktabs in a longtable, no typewriter font
+    assert result.stdout.startswith("\\begin{longtable}") and "\\toprule" in result.stdout
+    assert "\\hline" not in result.stdout and "\\texttt" not in result.stdout
     assert result.stdout.count("\\\\") == 3  # header and two strata
-    assert "\\texttt{g0\\{1\\} | 0-0}" in result.stdout
+    # the loop 0-0 typeset as an edge (en dash), not as a subtraction
+    assert "$g_{0}\\{1\\} \\allowbreak\\mid 0\\mbox{--}0$" in result.stdout
 
 
 def test_output_file(tmp_path):

@@ -15,7 +15,7 @@ def _by_codim(genus, n):
 
 
 # OEIS A000311 (Schroeder's fourth problem: series-reduced rooted trees with
-# n labelled leaves), offset 0: 0, 1, 1, 4, 26, 236, 2752, 39208.  The strata
+# n labelled leaves), offset 0: 0, 1, 1, 4, 26, 236, 2752, 39208 (terms from memory).  The strata
 # of Mbar_{0,n} are counted by A000311(n-1).  (n = 8 is in the benchmark.)
 A000311 = [0, 1, 1, 4, 26, 236, 2752, 39208]
 
@@ -44,7 +44,7 @@ def test_genus_zero_points_are_trivalent_trees(n):
 def test_unmarked_strata_count_cells_of_tropical_moduli(genus, expected):
     # M. Chan, Combinatorics of the tropical Torelli map, Algebra & Number
     # Theory 6 (2012): the tropical moduli space M_g^trop has 7, 42, 379, 4555
-    # cells for g = 2, 3, 4, 5 (the stable graphs of genus g).  g = 5 is in
+    # cells for g = 2, 3, 4, 5 (the stable graphs of genus g; from memory).  g = 5 is in
     # the benchmark.
     assert len(stable_graphs(genus, 0)) == expected
 
@@ -53,7 +53,7 @@ def test_unmarked_strata_count_cells_of_tropical_moduli(genus, expected):
 def test_unmarked_top_codimension_strata_are_trivalent(genus, expected):
     # S. Brodsky, M. Joswig, R. Morrison, B. Sturmfels, Moduli of tropical
     # plane curves, Research in the Mathematical Sciences 2 (2015): there are
-    # 2, 5, 17, 71 trivalent (maximal) genus-g graphs for g = 2, 3, 4, 5.
+    # 2, 5, 17, 71 trivalent (maximal) genus-g graphs for g = 2, 3, 4, 5 (from memory).
     top = [g for g in stable_graphs(genus, 0) if g.codim == 3 * genus - 3]
     assert len(top) == expected
     assert all(set(g.vertex_genera) == {0} for g in top)

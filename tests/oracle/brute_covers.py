@@ -96,7 +96,8 @@ class BruteCover:
     base edge ``k``; component ``i`` of the source has genus ``source_genera[i]``,
     lies over base vertex ``source_vertices[i]`` with degree ``source_degrees[i]``;
     ``source_edges[j]`` joins two components (the first over ``u``, the second over
-    ``w``) and lies over base edge ``source_edge_over[j]``.  The last three fields
+    ``w``) and lies over base edge ``source_edge_over[j]``, with ramification index
+    ``source_edge_index[j]`` (the length of its cycle).  The last four fields
     are extra information for matching covers; ``key()`` is an isomorphism
     invariant of the whole cover.
     """
@@ -109,6 +110,7 @@ class BruteCover:
     source_vertices: tuple[int, ...] = field(default=(), compare=False)
     source_degrees: tuple[int, ...] = field(default=(), compare=False)
     source_edge_over: tuple[int, ...] = field(default=(), compare=False)
+    source_edge_index: tuple[int, ...] = field(default=(), compare=False)
 
     @property
     def weight(self) -> Fraction:
@@ -342,6 +344,7 @@ class _Setup:
                 degrees.append(k_c)
         src_edges: list[tuple[int, int]] = []
         over: list[int] = []
+        index: list[int] = []
         mult = 1
         profiles = []
         for k, (u, w) in enumerate(self.edges):
@@ -354,6 +357,7 @@ class _Setup:
                 assert len(c) == len(b)
                 src_edges.append((comp_of[(u, min(c))], comp_of[(w, min(b))]))
                 over.append(k)
+                index.append(len(c))
         # connectivity of the source
         n = len(genera)
         parent = list(range(n))
@@ -377,6 +381,7 @@ class _Setup:
             source_vertices=tuple(verts),
             source_degrees=tuple(degrees),
             source_edge_over=tuple(over),
+            source_edge_index=tuple(index),
         )
         assert cover.arithmetic_genus == self.g, (
             f"source arithmetic genus {cover.arithmetic_genus} != Riemann–Hurwitz genus {self.g}"

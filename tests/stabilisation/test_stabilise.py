@@ -157,6 +157,7 @@ def test_stable_sources_are_strata_of_mbar_g():
         genus, sources = _stable_sources(*args)
         assert genus >= 2
         strata = set(stable_graphs(genus, 0))
+        assert sources
         for g in sources:
             assert isinstance(g, StableCurveGraph), g.notation
             assert g.genus == genus and g.n_legs == 0
@@ -172,3 +173,31 @@ def test_hyperelliptic_catalogue_reaches_all_of_mbar_2():
     assert genus == 2
     assert sources == set(stable_graphs(2, 0))
     assert len(sources) == 7
+
+
+# ---------------------------------------------------------------- with legs
+
+def test_legs_count_towards_valence():
+    # a genus-0 vertex with a leg and two nodes is stable with its leg
+    s = stabilise([0, 1], [(0, 1), (0, 1)], [[1], []])
+    assert s.genera == (0, 1) and s.legs == ((1,), ())
+    # without the leg it is a bridge
+    assert stabilise([0, 1], [(0, 1), (0, 1)]).genera == (1,)
+
+
+def test_a_tail_with_one_leg_moves_the_leg_and_records_its_path():
+    # g2 - g0 - g0{1}: the far tail carries leg 1, then the middle vertex is a tail with the leg
+    s = stabilise([2, 0, 0], [(0, 1), (1, 2)], [[], [], [1]])
+    assert s.genera == (2,) and s.legs == ((1,),) and s.edges == ()
+    assert sorted(s.leg_paths[0]) == [0, 1]
+
+
+def test_a_tail_with_two_legs_stays():
+    s = stabilise([2, 0], [(0, 1)], [[], [1, 2]])
+    assert s.genera == (2, 0) and s.legs == ((), (1, 2)) and s.leg_paths == ((), ())
+
+
+def test_unmarked_tail_next_to_a_marked_component():
+    # g1 - g0{1} - g0: the unmarked tail goes, then g0{1} is a tail with a leg
+    s = stabilise([1, 0, 0], [(0, 1), (1, 2)], [[], [1], []])
+    assert s.genera == (1,) and s.legs == ((1,),) and s.leg_paths == ((0,),)

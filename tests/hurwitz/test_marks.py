@@ -1,0 +1,76 @@
+"""Markings of the source: specifications, errors, the labelling factor."""
+
+from __future__ import annotations
+
+import pytest
+
+from covertree.hurwitz.marks import MarkError, labellings, legs_from_specs, marked_symmetry, parse_mark
+from covertree.hurwitz.problem import HurwitzProblem
+
+
+def test_every_ramified_point_of_each_index():
+    assert legs_from_specs([(3, 2, 2, 1)], ["1"]) == ((1, 3), (1, 2), (1, 2))
+
+
+def test_legs_are_ordered_by_point_then_index_whatever_the_option_order():
+    a = legs_from_specs([(2, 1), (3,), (1, 1, 1)], ["3:1^2", "1", "2"])
+    b = legs_from_specs([(2, 1), (3,), (1, 1, 1)], ["2", "1", "3:1^2"])
+    assert a == b == ((1, 2), (2, 3), (3, 1), (3, 1))
+
+
+def test_one_named_point_and_counts():
+    assert legs_from_specs([(2, 1, 1)], ["1:1"]) == ((1, 1),)
+    assert legs_from_specs([(2, 1, 1)], ["1:1^2", "1:2"]) == ((1, 2), (1, 1), (1, 1))
+
+
+@pytest.mark.parametrize("spec, words", [
+    ("7", "branch point 7; allowed: 1 .. 2"),
+    ("1:3", "no point of index 3"),
+    ("2", "is unramified"),
+    ("1:1^3", "has 2"),
+    ("x", "is not J, J:e or J:e^c"),
+    ("1:1^0", "at least 1"),
+    ("", "is not J"),
+])
+def test_bad_marks_are_one_line_errors(spec, words):
+    with pytest.raises(MarkError) as info:
+        legs_from_specs([(2, 1, 1), (1, 1, 1, 1)], [spec])
+    assert words in str(info.value) and "\n" not in str(info.value)
+
+
+def test_a_point_marked_twice_in_full():
+    with pytest.raises(MarkError, match="already marked"):
+        legs_from_specs([(2,), (2,)], ["1", "1"])
+    with pytest.raises(MarkError, match="asks for|ask for"):
+        legs_from_specs([(2,), (2,)], ["1", "1:2"])
+
+
+def test_parse_mark():
+    assert parse_mark("12:3^4") == (12, 3, 4)
+
+
+def test_labellings_are_falling_factorials():
+    # 4 points of index 1 over J, 2 of them labelled: 4 * 3
+    assert labellings([(2, 1, 1, 1, 1)], ((1, 1), (1, 1))) == 12
+    assert labellings([(2, 2, 1)], ((1, 2), (1, 2), (1, 1))) == 2
+    assert labellings([(2,)], ()) == 1
+
+
+def test_marked_symmetry_fixes_marked_points():
+    assert marked_symmetry([(2,)] * 6, ()) == 720
+    assert marked_symmetry([(2,)] * 6, tuple((j, 2) for j in range(1, 7))) == 1
+    assert marked_symmetry([(2, 1), (2, 1), (3,), (3,)], ((3, 3),)) == 2
+
+
+def test_problem_carries_marks_and_json():
+    p = HurwitzProblem.build(2, 0, genus=2, marks=["1"])
+    assert p.marks == ((1, 2),) and p.n_marks == 1
+    assert p.to_dict()["marks"] == [[1, 2]]
+    assert "marks" not in p.unmarked().to_dict()
+
+
+def test_problem_rejects_marks_that_name_no_point():
+    with pytest.raises(MarkError):
+        HurwitzProblem(2, 0, 2, HurwitzProblem.build(2, 0, genus=2).profiles, ((1, 1),))
+    with pytest.raises(MarkError):
+        HurwitzProblem.build(2, 0, genus=2, marks=["9"])
