@@ -7,10 +7,11 @@
   written through, never replaced.
 * A symbolic link is followed to an existing target; a dangling link is
   refused (it would create a file outside the requested path).
-* Temporary files are named ``.NAME.covertree-PID.XXXXXXXX.tmp``.  They are
-  removed when the write fails or is interrupted; one left behind by a killed
-  process (its PID no longer running) is removed by the next write into the
-  same folder.
+* Temporary files are named ``.NAME.covertree-partial-HOST-PID-XXXXXXXX``
+  (``HOST`` the machine, ``PID`` the writing process).  They are removed when
+  the write fails or is interrupted; one left behind by a killed process (of
+  this machine, its PID no longer running) is removed by the next write into
+  the same folder.
 
 Examples
 --------
@@ -27,6 +28,7 @@ from __future__ import annotations
 
 import os
 import re
+import socket
 import tempfile
 from collections.abc import Iterator
 from contextlib import contextmanager
@@ -34,9 +36,23 @@ from typing import IO
 
 from covertree.errors import InputError
 
-__all__ = ["atomic_output", "destination_problem", "is_leftover", "remove_leftovers", "same_file"]
+__all__ = ["atomic_output", "destination_problem", "is_leftover", "partial_prefix", "remove_leftovers", "same_file"]
 
-_LEFTOVER = re.compile(r"^\..*\.covertree-(\d+)\.[A-Za-z0-9_]+\.tmp$")
+_LEFTOVER = re.compile(r"^\..+\.covertree-partial-([A-Za-z0-9_]+)-(\d+)-[a-z0-9_]+$")
+
+
+def _host() -> str:
+    """This machine's name as it appears in temporary file names."""
+    return re.sub(r"[^A-Za-z0-9]", "_", socket.gethostname())[:40] or "host"
+
+
+def partial_prefix(name: str) -> str:
+    """The start of the temporary file name used while writing ``name``.
+
+    >>> partial_prefix("out.json").startswith(".out.json.covertree-partial-")
+    True
+    """
+    return f".{name[:100]}.covertree-partial-{_host()}-{os.getpid()}-"
 
 
 def destination_problem(output: str) -> str | None:
@@ -77,13 +93,13 @@ def same_file(first: str, second: str) -> bool:
 def is_leftover(name: str) -> bool:
     """True for the name of a temporary file whose writer is no longer running.
 
-    >>> is_leftover(".out.json.covertree-999999999.abcd1234.tmp")
+    >>> is_leftover(partial_prefix("out.json").replace(str(os.getpid()), "999999999") + "abcd1234")
     True
     >>> is_leftover("out.json")
     False
     """
     match = _LEFTOVER.match(name)
-    return match is not None and not _running(int(match.group(1)))
+    return match is not None and match.group(1) == _host() and not _running(int(match.group(2)))
 
 
 def _running(pid: int) -> bool:
@@ -141,7 +157,7 @@ def atomic_output(output: str, binary: bool = False) -> Iterator[IO]:
     target = os.path.realpath(output)
     directory, name = os.path.split(target)
     remove_leftovers(directory)
-    fd, tmp = tempfile.mkstemp(dir=directory, prefix=f".{name[:100]}.covertree-{os.getpid()}.", suffix=".tmp")
+    fd, tmp = tempfile.mkstemp(dir=directory, prefix=partial_prefix(name))
     try:
         with os.fdopen(fd, mode, encoding=encoding) as handle:
             yield handle
@@ -152,13 +168,26 @@ def atomic_output(output: str, binary: bool = False) -> Iterator[IO]:
 
 
 def _publish(tmp: str, target: str) -> None:
-    """Give ``tmp`` the mode of the file it replaces (or the usual mode of a
-    new file) and move it into place in one step."""
+    """Give ``tmp`` the mode (and, where allowed, the owner) of the file it
+    replaces, or the usual mode of a new file, and move it into place in one
+    step."""
     if os.path.isfile(target):
-        mode = os.stat(target).st_mode & 0o7777
+        old = os.stat(target)
+        mode = old.st_mode & 0o7777
+        _keep_owner(tmp, old)
     else:
         mask = os.umask(0)
         os.umask(mask)
         mode = 0o666 & ~mask
     os.chmod(tmp, mode)
     os.replace(tmp, target)
+
+
+def _keep_owner(tmp: str, old: os.stat_result) -> None:
+    """Give ``tmp`` the owner and group of the replaced file when permitted."""
+    if (old.st_uid, old.st_gid) == (os.geteuid(), os.getegid()):
+        return
+    try:
+        os.chown(tmp, old.st_uid, old.st_gid)
+    except OSError:
+        pass

@@ -3,7 +3,6 @@
 
 import os
 import signal
-import sqlite3
 import stat
 import threading
 import time
@@ -12,7 +11,7 @@ import pytest
 from click.testing import CliRunner
 
 from covertree.cli import main
-from covertree.export.files import is_leftover, remove_leftovers
+from covertree.export.files import is_leftover, partial_prefix, remove_leftovers
 
 SWEEP = ["sweep", "-g", "2", "-t", "1", "-d", "2", "-f", "json", "-q"]
 COUNT = ["count", "-g", "0", "-t", "0", "-d", "3", "-p", "3", "-f", "json"]
@@ -95,14 +94,18 @@ def test_draw_follows_a_link_to_an_existing_file(tmp_path):
 
 
 def test_leftovers_of_a_killed_writer_are_removed_by_the_next_run(tmp_path):
-    dead = tmp_path / ".out.json.covertree-999999999.abcd_123.tmp"
-    alive = tmp_path / f".out.json.covertree-{os.getppid()}.abcd_123.tmp"
+    ours = partial_prefix("out.json")
+    dead = tmp_path / (ours.replace(f"-{os.getpid()}-", "-999999999-") + "abcd_123")
+    alive = tmp_path / (ours.replace(f"-{os.getpid()}-", f"-{os.getppid()}-") + "abcd_123")
+    elsewhere = tmp_path / ".out.json.covertree-partial-otherhost-999999999-abcd_123"
     other = tmp_path / ".notes.tmp"
-    for path in (dead, alive, other):
+    for path in (dead, alive, elsewhere, other):
         path.write_text("partial")
-    assert is_leftover(dead.name) and not is_leftover(alive.name) and not is_leftover(other.name)
+    assert is_leftover(dead.name)
+    assert not any(is_leftover(p.name) for p in (alive, elsewhere, other))
     assert invoke(*COUNT, "-o", str(tmp_path / "out.json")).exit_code == 0
-    assert sorted(p.name for p in tmp_path.iterdir()) == sorted([alive.name, other.name, "out.json"])
+    kept = [alive.name, elsewhere.name, other.name, "out.json"]
+    assert sorted(p.name for p in tmp_path.iterdir()) == sorted(kept)
     assert remove_leftovers(str(tmp_path)) == []
 
 
@@ -111,7 +114,7 @@ SLOW = ["catalogue", "-g", "2", "-t", "0", "-d", "4", "-k", "2", "-f", "jsonl"]
 
 
 def temporaries(folder):
-    return [p for p in folder.iterdir() if ".covertree-" in p.name]
+    return [p for p in folder.iterdir() if ".covertree-partial-" in p.name]
 
 
 def signal_when(ready, sig) -> threading.Thread:
@@ -137,20 +140,3 @@ def test_signal_during_output_removes_the_temporary_file(tmp_path, sig):
     assert result.exit_code == 128 + sig, result.output
     assert result.stderr.count("\n") == 1 and f"interrupted by {signal.Signals(sig).name}" in result.stderr
     assert temporaries(tmp_path) == [] and not output.exists()
-
-
-def stored(path) -> int:
-    try:
-        with sqlite3.connect(f"file:{path}?mode=ro", uri=True, timeout=5) as conn:
-            return conn.execute("SELECT COUNT(*) FROM results").fetchone()[0]
-    except sqlite3.Error:
-        return 0
-
-
-def test_ctrl_c_of_a_sweep_says_what_the_store_kept(tmp_path):
-    path = tmp_path / "results.sqlite"
-    watcher = signal_when(lambda: path.exists() and stored(path) > 0, signal.SIGINT)
-    result = invoke("sweep", "-g", "2", "-t", "0", "-d", "4", "-k", "2", "-q", "--store", str(path))
-    watcher.join()
-    assert result.exit_code == 130, result.output
-    assert result.stderr.count("\n") == 1 and "kept in the store" in result.stderr
