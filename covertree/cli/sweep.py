@@ -178,7 +178,7 @@ def merge(files, fmt, quiet, output):
     output a single run gives."""
     reports = []
     for name in files:
-        with open(name, encoding="utf-8") as handle:
+        with open(name, "rb") as handle:
             reports.append((name, sweep_from_json(handle.read(), name)))
     report = merge_reports(reports)
     emit(render(report, fmt), output)
