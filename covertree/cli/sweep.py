@@ -52,13 +52,13 @@ def _check_store(store: str | None, output: str | None) -> None:
     refuse_output_onto_store(output, store)
 
 
-def _backend(jobs: int, dask: str | None):
+def _backend(jobs: int, dask: str | None, timeout: float | None = None):
     if dask is not None and jobs != 1:
         raise InputError("--jobs and --dask exclude each other (the cluster has its own workers)")
     if dask is not None:
         from covertree.sweep.cluster import DaskBackend
 
-        return DaskBackend(dask)
+        return DaskBackend(dask, timeout)
     return ProcessBackend(jobs) if jobs > 1 else SerialBackend()
 
 
@@ -140,12 +140,15 @@ def interrupted_message(total: int, finished: int, from_store: int, store: str |
 @click.option("--shard", "shard", default=None, help="Run only slice I of N (tasks with index % N == I-1).")
 @click.option("--dask", "dask", default=None, metavar="ADDRESS",
               help="Submit the tasks to this dask.distributed scheduler (extra covertree[dask]).")
+@click.option("--dask-timeout", "dask_timeout", type=click.FloatRange(min=0.1, max=600), default=None,
+              metavar="SECONDS",
+              help="With --dask: give up when the scheduler has not answered within this time (default 5).")
 @click.option("--store", "store", type=click.Path(dir_okay=False), default=None,
               help="SQLite results store: finished tasks are kept, a rerun computes only the rest.")
 @quiet_option
 @output_option
-def sweep(genus, target_genus, degree, profiles, codim, labeled, engine, fmt, jobs, shard, dask, store, quiet,
-          output):
+def sweep(genus, target_genus, degree, profiles, codim, labeled, engine, fmt, jobs, shard, dask, dask_timeout,
+          store, quiet, output):
     """Run every Hurwitz problem of the ranges over every base stratum of
     codimension <= K: one row per (problem, stratum) with the number of
     covers, total weight, Hurwitz number, identity verdict and the weight
@@ -157,7 +160,7 @@ def sweep(genus, target_genus, degree, profiles, codim, labeled, engine, fmt, jo
     piece = parse_shard(shard) if shard is not None else None
     plan = plan_sweep(spec)
     tasks = shard_tasks(plan.tasks, *piece) if piece else plan.tasks
-    outcome = _run(plan, tasks, _backend(jobs, dask), store, not quiet)
+    outcome = _run(plan, tasks, _backend(jobs, dask, dask_timeout), store, not quiet)
     report = shard_report(plan, tasks, outcome.results, piece) if piece else sweep_report(plan, outcome.results)
     emit(render(report, fmt), output)
     if not quiet:
