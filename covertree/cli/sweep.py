@@ -52,6 +52,17 @@ def _check_store(store: str | None, output: str | None) -> None:
     refuse_output_onto_store(output, store)
 
 
+def _refuse_nothing_to_do(plan: Plan) -> None:
+    """Refuse a sweep in which every problem is skipped (nothing computable)."""
+    if plan.problems or not plan.skipped:
+        return
+    first, rest = plan.skipped[0], len(plan.skipped) - 1
+    genus = "the genus of the profiles" if first.genus is None else f"genus {first.genus}"
+    more = f"; and {rest} more skipped problem{'s' if rest > 1 else ''}" if rest else ""
+    raise InputError(f"nothing to compute: every problem of the ranges is skipped ({genus} over genus "
+                     f"{first.target_genus} in degree {first.degree}: {first.reason}{more}); widen the ranges")
+
+
 def _backend(jobs: int, dask: str | None, timeout: float | None = None):
     if dask is not None and jobs != 1:
         raise InputError("--jobs and --dask exclude each other (the cluster has its own workers)")
@@ -159,6 +170,7 @@ def sweep(genus, target_genus, degree, profiles, codim, labeled, engine, fmt, jo
     spec = _spec(genus, target_genus, degree, profiles, codim, labeled, engine)
     piece = parse_shard(shard) if shard is not None else None
     plan = plan_sweep(spec)
+    _refuse_nothing_to_do(plan)
     tasks = shard_tasks(plan.tasks, *piece) if piece else plan.tasks
     outcome = _run(plan, tasks, _backend(jobs, dask, dask_timeout), store, not quiet)
     report = shard_report(plan, tasks, outcome.results, piece) if piece else sweep_report(plan, outcome.results)
