@@ -29,6 +29,7 @@ from __future__ import annotations
 import os
 import re
 import socket
+import stat
 import tempfile
 from collections.abc import Iterator
 from contextlib import contextmanager
@@ -63,19 +64,36 @@ def destination_problem(output: str) -> str | None:
     """
     if output == "":
         return "empty file name; give a path"
-    if os.path.islink(output) and not os.path.exists(output):
-        return f"{output!r} is a link to the missing {os.readlink(output)!r}; remove the link or give another name"
-    target = os.path.realpath(output)
-    if os.path.isdir(target):
-        return f"{output!r} is a folder; give a file"
-    if os.path.exists(target):
-        return None
-    directory = os.path.dirname(target)
+    if "\0" in output:
+        return f"{_short(output)} contains a NUL character"
+    found = _stat(output)
+    if found is None and os.path.islink(output):
+        return f"{_short(output)} is a link to the missing {_short(os.readlink(output))}; remove the link or give another name"
+    if found is not None:
+        return f"{_short(output)} is a folder; give a file" if stat.S_ISDIR(found.st_mode) else None
+    return _folder_problem(os.path.dirname(os.path.realpath(output)))
+
+
+def _folder_problem(directory: str) -> str | None:
+    if not os.path.exists(directory):
+        return f"folder {_short(directory)} does not exist"
     if not os.path.isdir(directory):
-        return f"folder {directory!r} does not exist"
+        return f"{_short(directory)} is a file, not a folder"
     if not os.access(directory, os.W_OK | os.X_OK):
-        return f"folder {directory!r} is not writable"
+        return f"folder {_short(directory)} is not writable"
     return None
+
+
+def _stat(path: str) -> os.stat_result | None:
+    """``os.stat`` (links followed, ``/dev/stdout`` too), ``None`` if missing."""
+    try:
+        return os.stat(path)
+    except (FileNotFoundError, NotADirectoryError):
+        return None
+
+
+def _short(text: str) -> str:
+    return repr(text) if len(text) <= 200 else f"{text[:60]!r}... ({len(text)} characters)"
 
 
 def same_file(first: str, second: str) -> bool:
@@ -132,8 +150,10 @@ def remove_leftovers(directory: str) -> list[str]:
 
 
 def _writes_through(output: str) -> bool:
-    target = os.path.realpath(output)
-    return os.path.exists(target) and not os.path.isfile(target)
+    """True when ``output`` exists and is not a regular file (a device, a
+    fifo, a terminal, ``/dev/stdout``): such a target is written into."""
+    found = _stat(output)
+    return found is not None and not stat.S_ISREG(found.st_mode)
 
 
 @contextmanager
@@ -151,7 +171,7 @@ def atomic_output(output: str, binary: bool = False) -> Iterator[IO]:
         raise InputError(f"--output: {problem}")
     mode, encoding = ("wb", None) if binary else ("w", "utf-8")
     if _writes_through(output):
-        with open(os.path.realpath(output), mode, encoding=encoding) as handle:
+        with open(output, mode, encoding=encoding) as handle:
             yield handle
         return
     target = os.path.realpath(output)

@@ -140,3 +140,71 @@ def test_signal_during_output_removes_the_temporary_file(tmp_path, sig):
     assert result.exit_code == 128 + sig, result.output
     assert result.stderr.count("\n") == 1 and f"interrupted by {signal.Signals(sig).name}" in result.stderr
     assert temporaries(tmp_path) == [] and not output.exists()
+
+
+def test_sweep_checks_the_destination_before_computing(tmp_path):
+    store = tmp_path / "s.sqlite"
+    line = refused(invoke(*SWEEP, "--store", str(store), "-o", str(tmp_path / "no" / "out.json")))
+    assert "does not exist" in line and not store.exists()  # refused before the store was even made
+
+
+def as_nobody(task, *args):
+    """Run ``task(*args)`` in a child process without the right to write
+    anywhere but where everyone may (the nobody user when run as root);
+    returns what it answered."""
+    import multiprocessing
+
+    import covertree.cli.count  # noqa: F401  (loaded before privileges are dropped)
+
+    def child(answers):
+        if os.geteuid() == 0:
+            os.setgid(65534)
+            os.setuid(65534)
+        answers.put(task(*args))
+
+    context = multiprocessing.get_context("fork")
+    answers = context.Queue()
+    process = context.Process(target=child, args=(answers,))
+    process.start()
+    answer = answers.get(timeout=60)
+    process.join(30)
+    return answer
+
+
+def count_into(path):
+    result = invoke(*COUNT, "-o", path)
+    return result.exit_code, result.stderr
+
+
+def test_output_into_a_read_only_folder_refused_in_one_line():
+    import shutil
+    import tempfile
+
+    folder = tempfile.mkdtemp()
+    os.chmod(folder, 0o555)
+    try:
+        status, stderr = as_nobody(count_into, os.path.join(folder, "out.json"))
+        assert (status, stderr.count("\n")) == (2, 1) and "not writable" in stderr
+        assert os.listdir(folder) == []
+    finally:
+        os.chmod(folder, 0o755)
+        shutil.rmtree(folder)
+
+
+def test_leftover_of_a_killed_writer_is_recognised_and_cleaned(tmp_path):
+    import subprocess
+    import sys
+
+    output = tmp_path / "covers.jsonl"
+    child = subprocess.Popen([sys.executable, "-c", "from covertree.cli import main; main()", *SLOW,
+                              "-o", str(output)], stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL)
+    deadline = time.monotonic() + 60
+    while not temporaries(tmp_path) and time.monotonic() < deadline:
+        time.sleep(0.02)
+    child.kill()
+    child.wait(30)
+    left = temporaries(tmp_path)
+    assert len(left) == 1 and is_leftover(left[0].name) and not output.exists()
+    assert left[0].name.startswith(".covers.jsonl.covertree-partial-")
+    assert invoke(*COUNT, "-o", str(tmp_path / "other.json")).exit_code == 0
+    assert temporaries(tmp_path) == []
