@@ -107,9 +107,9 @@ def _run(plan: Plan, tasks, backend, store: str | None, show: bool) -> RunOutcom
                     done[1] += was_stored
                     advance(task, was_stored)
                 return run_tasks(tasks, backend, opened, counted)
-        except KeyboardInterrupt:
+        except KeyboardInterrupt as stop:  # Ctrl-C, or SIGTERM/SIGHUP (see OneLineCommand)
             click.echo(interrupted_message(len(tasks), done[0], done[1], store), err=True)
-            sys.exit(130)
+            sys.exit(128 + getattr(stop, "signum", 2))
         finally:
             if opened is not None:
                 opened.close()
