@@ -128,13 +128,14 @@ class ResultStore:
 
     def __init__(self, path: str, create: bool = True) -> None:
         self.path = path
-        if path == "":
-            raise StoreError("empty store name; give the path of an SQLite file")
-        if not create and not os.path.exists(path):
-            raise StoreError(f"store {path!r} does not exist")
+        problem = _path_problem(path, create)
+        if problem:
+            raise StoreError(problem)
         self._conn = _connect(path, create)
         try:
             if _while_busy(lambda: _check(self._conn, path), path):
+                if not create:
+                    raise StoreError(f"store {path!r} is empty: not a covertree store")
                 _while_busy(lambda: _initialise(self._conn, path), path)
             self._conn.execute("PRAGMA synchronous = NORMAL")
         except BaseException:
@@ -203,6 +204,20 @@ class _transaction:
     def __exit__(self, kind, value, traceback) -> bool:
         self.conn.execute("COMMIT" if kind is None else "ROLLBACK")
         return False
+
+
+def _path_problem(path: str, create: bool) -> str | None:
+    """Why ``path`` cannot be a store (one phrase), or ``None``."""
+    if path == "":
+        return "empty store name; give the path of an SQLite file"
+    if os.path.exists(path):
+        return None if os.path.isfile(path) else f"store {path!r} is not a regular file; give an SQLite file"
+    if not create:
+        return f"store {path!r} does not exist"
+    if os.path.islink(path):
+        return f"store {path!r} is a link to the missing {os.readlink(path)!r}; remove the link or give another name"
+    folder = os.path.dirname(os.path.abspath(path))
+    return None if os.path.isdir(folder) else f"store {path!r}: folder {folder!r} does not exist"
 
 
 def _connect(path: str, create: bool) -> sqlite3.Connection:

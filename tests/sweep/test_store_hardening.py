@@ -6,6 +6,7 @@ import multiprocessing
 import os
 import shutil
 import sqlite3
+import stat
 import tempfile
 
 import pytest
@@ -193,3 +194,36 @@ def test_store_in_a_read_only_folder_can_be_exported():
     finally:
         os.chmod(folder, 0o755)
         shutil.rmtree(folder)
+
+
+def make_store_path(folder, kind: str) -> str:
+    path = os.path.join(folder, kind)
+    if kind == "fifo":
+        os.mkfifo(path)
+    elif kind == "device":
+        if os.geteuid() != 0:
+            pytest.skip("mknod of a character device needs root")
+        os.mknod(path, 0o666 | stat.S_IFCHR, os.makedev(1, 3))  # a null device in the test's own folder
+    elif kind == "dangling":
+        os.symlink(os.path.join(folder, "elsewhere.sqlite"), path)
+    elif kind == "missing_folder":
+        path = os.path.join(folder, "no", "s.sqlite")
+    return path
+
+
+@pytest.mark.parametrize("kind, words", [
+    ("fifo", "not a regular file"), ("device", "not a regular file"),
+    ("dangling", "link to the missing"), ("missing_folder", "does not exist"),
+])
+def test_stores_that_are_not_files_refused_and_nothing_created(tmp_path, kind, words):
+    path = make_store_path(str(tmp_path), kind)
+    before = sorted(os.listdir(tmp_path))
+    one_line(invoke(*SWEEP, "--store", path), words)
+    assert sorted(os.listdir(tmp_path)) == before
+
+
+def test_export_of_an_empty_file_refused(tmp_path):
+    path = tmp_path / "empty.sqlite"
+    path.write_bytes(b"")
+    one_line(invoke("export", "--store", str(path)), "is empty")
+    assert path.read_bytes() == b""
