@@ -3,15 +3,14 @@
 from __future__ import annotations
 
 import re
-import signal
 import sys
-import threading
 from collections.abc import Iterator
 from contextlib import contextmanager
 from typing import IO
 
 import click
 
+from covertree.cli.interrupts import interrupted_line, interrupted_status, signals_interrupt
 from covertree.errors import InputError, ProfileError
 from covertree.export.files import atomic_output, destination_problem, same_file
 from covertree.symmetric.partitions import Partition
@@ -114,52 +113,12 @@ class OneLineCommand(click.Command):
         """Run the command; SIGTERM and SIGHUP interrupt it like Ctrl-C (temporary
         files are removed), and an interruption exits ``128 + signal`` (130 for
         Ctrl-C) with one line saying what was kept."""
-        with _signals_interrupt():
+        with signals_interrupt():
             try:
                 return super().invoke(ctx)
             except KeyboardInterrupt as stop:
-                click.echo(f"covertree: interrupted by {_signal_name(stop)}: {_kept(ctx.params)}", err=True)
-                sys.exit(128 + getattr(stop, "signum", signal.SIGINT))
-
-
-class Terminated(KeyboardInterrupt):
-    """SIGTERM or SIGHUP received (handled like Ctrl-C)."""
-
-    def __init__(self, signum: int) -> None:
-        super().__init__(signum)
-        self.signum = signum
-
-
-def _signal_name(stop: KeyboardInterrupt) -> str:
-    return signal.Signals(getattr(stop, "signum", signal.SIGINT)).name
-
-
-def _kept(params: dict) -> str:
-    """What an interrupted run leaves behind."""
-    output = params.get("output")
-    said = f"{output!r} not written" if output else "the output is incomplete"
-    store = params.get("store")
-    if store:
-        said += f"; the finished tasks are kept in the store {store!r}"
-    return said
-
-
-def _raise_terminated(signum, frame) -> None:
-    raise Terminated(signum)
-
-
-@contextmanager
-def _signals_interrupt() -> Iterator[None]:
-    """Turn SIGTERM and SIGHUP into :class:`Terminated` (main thread only)."""
-    if threading.current_thread() is not threading.main_thread():
-        yield
-        return
-    previous = {sig: signal.signal(sig, _raise_terminated) for sig in (signal.SIGTERM, signal.SIGHUP)}
-    try:
-        yield
-    finally:
-        for sig, handler in previous.items():
-            signal.signal(sig, handler)
+                click.echo(interrupted_line(stop, ctx.params), err=True)
+                sys.exit(interrupted_status(stop))
 
 
 class PickType(click.ParamType):

@@ -14,6 +14,7 @@ from rich.progress import BarColumn, MofNCompleteColumn, Progress, ProgressColum
 from rich.table import Table
 from rich.text import Text
 
+from covertree.cli.interrupts import interrupted_status
 from covertree.cli.params import INT_RANGE, PROFILE, OneLineCommand, emit, format_option, output_option, \
     refuse_output_onto_store
 from covertree.cli.render import fitted_table, table_text
@@ -109,7 +110,7 @@ def _run(plan: Plan, tasks, backend, store: str | None, show: bool) -> RunOutcom
                 return run_tasks(tasks, backend, opened, counted)
         except KeyboardInterrupt as stop:  # Ctrl-C, or SIGTERM/SIGHUP (see OneLineCommand)
             click.echo(interrupted_message(len(tasks), done[0], done[1], store), err=True)
-            sys.exit(128 + getattr(stop, "signum", 2))
+            sys.exit(interrupted_status(stop))
         finally:
             if opened is not None:
                 opened.close()
