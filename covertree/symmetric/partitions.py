@@ -84,6 +84,8 @@ class Partition(tuple):
             part, times = int(m.group(1)), int(m.group(2) or 1)
             if part == 0:
                 raise ProfileError(f"profile {text!r}: parts must be positive")
+            if times == 0:
+                raise ProfileError(f"profile {text!r}: {token.strip()!r} repeats a part 0 times; write k >= 1 in a^k")
             parts.extend([part] * times)
         return cls(parts)
 
