@@ -76,7 +76,7 @@ from math import factorial, prod
 
 from covertree.errors import IdentityError
 from covertree.graphs.curve_graph import CurveGraph
-from covertree.gluing.structure import Glued, Port, canonical_code, least_cycles, piece_cycles
+from covertree.gluing.structure import Glued, Port, canonical_code, piece_cycles
 from covertree.monodromy.local import LocalCover, local_covers, special_points
 from covertree.monodromy.pieces import Piece
 
@@ -156,7 +156,7 @@ def glued_covers(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]
     >>> stats = GluingStats()
     >>> base = StableCurveGraph([(0, [1]), (0, [2])], nodes=[(0, 1), (0, 1)])
     >>> len(list(glued_covers(base, 4, [(2, 1, 1)] * 2, stats=stats))), stats.covers, stats.repeats
-    (12, 12, 7)
+    (12, 12, 1)
     """
     specs = special_points(base)
     stats = GluingStats() if stats is None else stats
@@ -236,8 +236,10 @@ class _Matcher:
             seen.update(base.nodes[k])
         self.one_each = len(self.pieces) == len(set(self.vertex))
         self.twins = self._twins()
-        self.least = self._least_ports()
+        self.decks = [self._deck_actions(i) for i in range(len(self.pieces))]
+        self.fixed: list[list[tuple[int, int]]] = [[] for _ in self.pieces]
         self.orbits = [self._left_orbits(base, side) for side in self.sides]
+        self.loop = [base.nodes[k][0] == base.nodes[k][1] for _l, _r, k, _f in self.sides]
         self.touched = [0] * len(self.pieces)
         self.used: set[Port] = set()
         self.floor: dict[Port, int] = {}
@@ -287,33 +289,41 @@ class _Matcher:
             for j in range(len(self.pieces))
         ]
 
-    def _least_ports(self) -> set[Port]:
-        """Ports least in their orbit under their piece's deck group."""
-        return {(j, p, c) for j, piece in enumerate(self.pieces)
-                for p in self.halves[j] for c in least_cycles(piece, p)}
+    def _deck_actions(self, i: int) -> list[dict[tuple[int, int], int]]:
+        """How each deck transformation of piece ``i`` but the identity moves
+        its ports: ``(point, cycle) -> cycle``."""
+        piece, out = self.pieces[i], []
+        for g in piece.centraliser:
+            if any(g[x] != x for x in range(piece.degree)):
+                act = {}
+                for p in self.halves[i]:
+                    cyc = self.glued.port_cycles[i][p]
+                    where = {x: n for n, cy in enumerate(cyc) for x in cy}
+                    act.update({(p, c): where[g[cy[0]]] for c, cy in enumerate(cyc)})
+                out.append(act)
+        return out
+
+    def _moves(self, i: int, extra: tuple[int, int] | None = None) -> Iterator[dict[tuple[int, int], int]]:
+        """The deck actions of piece ``i`` fixing each of its used ports (and
+        ``extra``)."""
+        fixed = self.fixed[i] if extra is None else self.fixed[i] + [extra]
+        for act in self.decks[i]:
+            if all(act[f] == f[1] for f in fixed):
+                yield act
 
     def _left_orbits(self, base: CurveGraph, side: tuple) -> list[list[Port]]:
-        """Per left port of an edge between distinct vertices: the other
-        ports of its piece and of its later twins in its orbit under their
-        deck groups and the permutations of the twins (rule 3 of the module
-        docstring); nothing over a loop."""
+        """Per left port of an edge between distinct vertices: the ports of
+        the later twins of its piece in the orbit of the same port under their
+        deck groups (rule 3 of the module docstring, for a pristine piece);
+        nothing over a loop."""
         left, _right, k, _flipped = side
         if base.nodes[k][0] == base.nodes[k][1]:
             return [[] for _ in left]
         out = []
         for (i, p, c), _length in left:
-            orbit = [y for y in self.deck_orbit(i, p, c) if y[2] != c]
-            orbit += [(j, p, y[2]) for j in range(i + 1, len(self.pieces))
-                      if i in self.twins[j] for y in self.deck_orbit(i, p, c)]
-            out.append(orbit)
+            orbit = {c} | {act[(p, c)] for act in self.decks[i]}
+            out.append([(j, p, n) for j in range(i + 1, len(self.pieces)) if i in self.twins[j] for n in sorted(orbit)])
         return out
-
-    def deck_orbit(self, i: int, p: int, c: int) -> list[Port]:
-        """The ports of piece ``i`` at point ``p`` that its deck group moves
-        cycle ``c`` to (``c`` included), by cycle index."""
-        cyc = self.glued.port_cycles[i][p]
-        where = {x: n for n, cy in enumerate(cyc) for x in cy}
-        return [(i, p, n) for n in sorted({where[g[cyc[c][0]]] for g in self.pieces[i].centraliser})]
 
     def matchings(self) -> Iterator[dict[Port, Port]]:
         yield from self._match(0, 0)
@@ -337,10 +347,13 @@ class _Matcher:
     def _match_port(self, e: int, t: int, left_port: tuple[Port, int], right: list) -> Iterator[dict[Port, Port]]:
         port, length = left_port
         copies = self.copies[-1]
-        orbit = () if self.touched[port[0]] else self.orbits[e][t]
+        orbit = [] if self.touched[port[0]] else list(self.orbits[e][t])
+        if not self.loop[e]:
+            orbit += [(port[0], port[1], act[port[1:]]) for act in self._moves(port[0])
+                      if act[port[1:]] != port[2]]
         for rank in range(self.floor.get(port, -1) + 1, len(right)):
             cand, clen = right[rank]
-            if clen != length or cand in self.used or not self._allowed(port[0], cand) \
+            if clen != length or cand in self.used or not self._allowed(port, cand) \
                     or not copies.allowed(port, cand):
                 continue
             pending = copies.register(port, rank)
@@ -366,16 +379,25 @@ class _Matcher:
         for y, old in reversed(raised):
             self.floor[y] = old
 
-    def _allowed(self, owner: int, cand: Port) -> bool:
-        """Rule 2: a port of a pristine piece (not the owner's) is least in its
-        deck orbit (rule 1 is :meth:`_Copies.allowed`)."""
+    def _allowed(self, port: Port, cand: Port) -> bool:
+        """Rule 2: no deck transformation of the candidate's piece fixing its
+        used ports (and ``port``) moves ``cand`` to a lesser port (rule 1 is
+        :meth:`_Copies.allowed`)."""
         q = cand[0]
-        return q == owner or bool(self.touched[q]) or cand in self.least
+        if not self.decks[q]:
+            return True
+        extra = port[1:] if q == port[0] else None
+        return all(act[cand[1:]] >= cand[2] for act in self._moves(q, extra))
 
     def _pair(self, a: Port, b: Port, step: int) -> None:
         self.touched[a[0]] += step
         self.touched[b[0]] += step
         self.copies[-1].busy(a[0], b[0], step)
+        for x in (a, b):
+            if step > 0:
+                self.fixed[x[0]].append(x[1:])
+            else:
+                self.fixed[x[0]].pop()
         if step > 0:
             self.used.add(b)
             self.glued.partner[a], self.glued.partner[b] = b, a
