@@ -166,58 +166,68 @@ def glued_covers(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]
 
 def balanced_choices(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]]) -> Iterator[list[LocalCover]]:
     """Every choice of one local cover per base vertex with equal profiles
-    across each node (the balancing condition)."""
+    across each node (the balancing condition), as a list by vertex.
+
+    Vertices are visited in :func:`_vertex_order`; at each, the profiles at
+    the half-edges to vertices already chosen are prescribed like those of
+    legs, so only local covers that balance are ever built."""
     specs = special_points(base)
-    options = []
-    for v, spec in enumerate(specs):
-        prof = tuple(tuple(profiles[s[1] - 1]) if s[0] == "leg" else None for s in spec)
-        options.append(_local_covers(degree, base.vertex_genera[v], prof))
-    yield from _balanced_choices(base, specs, options)
+    order = _vertex_order(base, specs)
+    done = {v: n for n, v in enumerate(order)}
+    links = _links(base, specs, done)
+    loops = [[(_half_index(specs, v, k, 0), _half_index(specs, v, k, 1))
+              for k, (i, j) in enumerate(base.nodes) if i == j == v] for v in range(len(specs))]
+    chosen: list[LocalCover | None] = [None] * len(specs)
 
+    def options(v: int) -> list[LocalCover]:
+        given = {p: chosen[a].profiles[pa] for p, a, pa in links[v]}
+        prof = tuple(tuple(profiles[sp[1] - 1]) if sp[0] == "leg" else given.get(p)
+                     for p, sp in enumerate(specs[v]))
+        return [c for c in _local_covers(degree, base.vertex_genera[v], prof)
+                if all(c.profiles[x] == c.profiles[y] for x, y in loops[v])]
 
-def _half_index(specs: list, v: int, k: int, side: int) -> int:
-    return specs[v].index(("half", k, side))
-
-
-def _balanced_choices(base: CurveGraph, specs: list, options: list) -> Iterator[list[LocalCover]]:
-    """Choices of one local cover per vertex with equal profiles across nodes:
-    the covers at each vertex are indexed by their profiles at the nodes to
-    earlier vertices, so each choice is found by look-up, not by trial."""
-    links: list[list[tuple[int, int, int]]] = [[] for _ in specs]
-    loops: list[list[tuple[int, int]]] = [[] for _ in specs]
-    for k, (i, j) in enumerate(base.nodes):
-        hi, hj = _half_index(specs, i, k, 0), _half_index(specs, j, k, 1)
-        if i == j:
-            loops[i].append((hi, hj))
-        else:
-            (a, pa), (b, pb) = sorted([(i, hi), (j, hj)])
-            links[b].append((pb, a, pa))
-    index = [_index_options(options[v], links[v], loops[v]) for v in range(len(specs))]
-    chosen: list[LocalCover] = []
-
-    def rec(v: int) -> Iterator[list[LocalCover]]:
-        if v == len(specs):
+    def rec(n: int) -> Iterator[list[LocalCover]]:
+        if n == len(order):
             yield list(chosen)
             return
-        key = tuple(chosen[a].profiles[pa] for _p, a, pa in links[v])
-        for cover in index[v].get(key, ()):
-            chosen.append(cover)
-            yield from rec(v + 1)
-            chosen.pop()
+        v = order[n]
+        for cover in options(v):
+            chosen[v] = cover
+            yield from rec(n + 1)
+        chosen[v] = None
 
     yield from rec(0)
 
 
-def _index_options(options: Sequence[LocalCover], links: list[tuple[int, int, int]],
-                   loops: list[tuple[int, int]]) -> dict[tuple, list[LocalCover]]:
-    """The local covers balanced across their own loops, by their profiles at
-    the half-edges ``links`` lists (in order, the original order kept)."""
-    index: dict[tuple, list[LocalCover]] = {}
-    for cover in options:
-        prof = cover.profiles
-        if all(prof[x] == prof[y] for x, y in loops):
-            index.setdefault(tuple(prof[p] for p, _a, _pa in links), []).append(cover)
-    return index
+def _vertex_order(base: CurveGraph, specs: list) -> list[int]:
+    """Vertices with legs first (by index), then repeatedly the vertex with the
+    most half-edges towards those already placed (then the least index)."""
+    order = [v for v, spec in enumerate(specs) if any(sp[0] == "leg" for sp in spec)] or [0]
+    while len(order) < len(specs):
+        placed = set(order)
+
+        def towards(v: int) -> int:
+            return sum((i in placed) + (j in placed) for i, j in base.nodes if v in (i, j) and i != j)
+
+        rest = [v for v in range(len(specs)) if v not in placed]
+        order.append(max(rest, key=lambda v: (towards(v), -v)))
+    return order
+
+
+def _links(base: CurveGraph, specs: list, done: dict[int, int]) -> list[list[tuple[int, int, int]]]:
+    """Per vertex ``v``: ``(point of v, earlier vertex a, point of a)`` for
+    each node from ``v`` to a vertex visited before it."""
+    links: list[list[tuple[int, int, int]]] = [[] for _ in specs]
+    for k, (i, j) in enumerate(base.nodes):
+        if i != j:
+            hi, hj = _half_index(specs, i, k, 0), _half_index(specs, j, k, 1)
+            (_, a, pa), (_, b, pb) = sorted([(done[i], i, hi), (done[j], j, hj)])
+            links[b].append((pb, a, pa))
+    return links
+
+
+def _half_index(specs: list, v: int, k: int, side: int) -> int:
+    return specs[v].index(("half", k, side))
 
 
 class _Matcher:
