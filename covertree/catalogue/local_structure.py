@@ -2,7 +2,7 @@ r"""Local structure of the space of admissible covers at one cover.
 
 Over a base node ``q`` whose preimages have ramification indices
 ``e_1..e_k`` the space of admissible covers is locally
-``C[[t, s_1..s_k]]/(s_i^{e_i} - t)`` times smooth factors (THEORY.md section 3;
+``C[[t, s_1..s_k]]/(s_i^{e_i} - t)`` times smooth factors (docs/theory.md, section 6;
 Harris–Mumford 1982, section 4): ``t`` smooths ``q`` and ``s_i`` smooths the
 ``i``-th node above it.  With ``L_q = lcm(e_i)``:
 

@@ -4,7 +4,7 @@ Let ``br`` map the space of admissible covers of a Hurwitz problem to the
 target's ``Mbar_{h,b}`` and ``src`` to ``Mbar_G`` (the stabilised source).
 For a base divisor ``D_j`` (a codimension-one stratum: one node ``q``) and a
 boundary divisor ``delta`` of ``Mbar_G`` (``delta_0``, ``delta_1``, ...,
-``delta_{floor(G/2)}``) THEORY.md section 4 gives
+``delta_{floor(G/2)}``) docs/theory.md, section 8, gives
 
     br_* src^* delta = sum_j c(D_j, delta) [D_j]   (near the boundary),
 
@@ -29,7 +29,7 @@ ord(n) over the stable nodes n of type delta``: a germ that meets two branches
 of ``delta`` (for instance two non-separating nodes) counts both.  Each branch
 maps its divisor ``u = 0`` isomorphically onto ``D_j``, hence the formula.
 
-The second self-check of THEORY.md section 4: ``sum_f #branches_f * L_f /
+The second self-check (docs/theory.md, section 7): ``sum_f #branches_f * L_f /
 |Aut f| = H`` for every ``D_j`` (:attr:`PullbackRow.check_holds`).
 
 Coefficients are per labelled divisor; with orbits (the default) one

@@ -4,7 +4,7 @@ For every choice of local covers at the base vertices whose profiles agree
 across each node (the balancing condition), the matchings of node preimages
 (ports) are enumerated, connected sources kept, and each isomorphism class
 reported once, with ``|Aut f|`` and ``mult(f) = prod_q prod_i e_{q,i}``
-(THEORY.md section 3).
+(docs/theory.md, sections 5 and 6).
 
 Symmetry breaking
 -----------------

@@ -10,7 +10,7 @@ side 0 of base edge ``k`` is matched with one of equal length over side 1.
 
 Two covers are isomorphic when an element of ``prod_v S_d`` (relabelling the
 sheets over every base vertex independently) carries one to the other; the
-automorphism group ``Aut(f)`` is the stabiliser (THEORY.md section 3).
+automorphism group ``Aut(f)`` is the stabiliser (docs/theory.md, section 5).
 
 Canonical code
 --------------

@@ -1,6 +1,6 @@
 """Dual graphs of nodal curves and stable graphs (boundary strata).
 
-Conventions (THEORY section 2): vertices are 0-based, legs are labelled by
+Conventions (docs/theory.md, section 2): vertices are 0-based, legs are labelled by
 positive integers (``1..n`` for a stratum of ``Mbar_{g,n}``), loops and
 parallel nodes are allowed.  The arithmetic genus is ``sum g_v + E - V + 1``;
 a vertex is stable when ``2 g_v - 2 + n_v > 0``, ``n_v`` its valence (legs plus

@@ -1,6 +1,6 @@
 """Hurwitz numbers by characters of the symmetric group.
 
-Convention (THEORY.md, section 5; the same everywhere in covertree)
+Convention (docs/theory.md, section 4; the same everywhere in covertree)
 --------------------------------------------------------------------
 A Hurwitz number counts degree-``d`` covers of a genus-``h`` surface with the
 profiles ``mu_1..mu_b`` over **labelled** branch points, each cover weighted by
@@ -214,7 +214,7 @@ def connected_hurwitz(
     degree: int, target_genus: int, profiles: Sequence[Sequence[int]]
 ) -> Fraction:
     """The connected Hurwitz number ``H`` (inclusion-exclusion over the orbit of
-    sheet 0, THEORY.md section 5).
+    sheet 0, docs/theory.md, section 4).
 
     Labelled branch points, weight ``1/|Aut|``, unlabelled preimages.  For
     unordered branch points divide by the symmetry of the list of profiles; for

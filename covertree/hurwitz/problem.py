@@ -178,6 +178,21 @@ class HurwitzProblem:
         """Number of legs ``n`` of the source (marked points)."""
         return len(self.marks)
 
+    @property
+    def has_source_space(self) -> bool:
+        """Whether ``Mbar_{g,n}`` of the source exists (``2g - 2 + n > 0``).
+
+        When it does not (genus 0 with at most two legs, genus 1 without
+        legs), the "stable source" of a cover is the source contracted as far
+        as the stabilisation rules go, not a point of a moduli space.
+
+        >>> HurwitzProblem.build(2, 0, genus=1).has_source_space
+        False
+        >>> HurwitzProblem.build(2, 0, genus=1, marks=["1"]).has_source_space
+        True
+        """
+        return 2 * self.genus - 2 + self.n_marks > 0
+
     def unmarked(self) -> "HurwitzProblem":
         """The same problem without marks."""
         return HurwitzProblem(self.genus, self.target_genus, self.degree, self.profiles)

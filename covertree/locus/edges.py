@@ -4,7 +4,7 @@ Let ``f`` be a cover over a fixed curve of a base stratum ``T`` with nodes
 ``q``.  Near the stratum of ``f`` the normalised space of admissible covers has
 one smooth branch per choice of branches at every node (``prod_q prod_i
 e_{q,i} / L_q`` of them, ``L_q = lcm_i e_{q,i}``), with a coordinate ``u_q``
-per node, ``t_q = u_q^{L_q}`` (THEORY of the catalogue:
+per node, ``t_q = u_q^{L_q}`` (docs/theory.md, section 6, and
 :mod:`covertree.catalogue.local_structure`).  A source node ``x`` over ``q``
 with index ``e_x`` is smoothed by ``u_q^{L_q/e_x}``; a node ``n`` of the
 stabilised source is smoothed by the product of the parameters of the chain of

@@ -1,6 +1,6 @@
 """Stabilisation of the dual graph of a nodal curve, with or without legs.
 
-Rules (THEORY.md section 3), applied until none applies, legs counting towards
+Rules (docs/theory.md, section 8), applied until none applies, legs counting towards
 the valence:
 
 - a genus-0 vertex with one edge and no leg (a rational tail) is deleted with

@@ -1,5 +1,5 @@
-"""Pullbacks of the boundary divisors of ``Mbar_G`` from types (THEORY.md
-section 4), without listing covers.
+"""Pullbacks of the boundary divisors of ``Mbar_G`` from types (docs/theory.md,
+section 8), without listing covers.
 
 For a base divisor ``D`` (one node with profile ``e_1..e_k``, ``L = lcm e_i``)
 a cover ``f`` has ``#branches = prod e_i / L = mult(f)/L`` branches, so

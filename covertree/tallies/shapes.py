@@ -9,7 +9,7 @@ half-edge point ``p`` of ``v``, the special points in the order of
 half-edges in edge order).  Its genus follows from Riemann-Hurwitz,
 ``2g - 2 = k(2h - 2) + sum_p (k - len(profile at p))``, and its weight is the
 connected Hurwitz number ``connected_hurwitz(k, h, [nu..., alpha...])`` (unlabelled
-preimages, THEORY.md section 5); shapes with weight 0 are dropped.
+preimages, docs/theory.md, section 4); shapes with weight 0 are dropped.
 
 A *local multiset* over ``v`` is a multiset of shapes whose degrees add up to
 ``d`` and whose sub-profiles at each leg ``j`` add up to ``mu_j``.

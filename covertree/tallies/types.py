@@ -1,5 +1,5 @@
 r"""Weighted tallies of admissible covers from combinatorial types, without
-listing covers (THEORY.md section 7).
+listing covers (docs/theory.md, section 10).
 
 Types
 -----
@@ -13,8 +13,8 @@ points of ``alpha_p`` (the preimages of the node point ``p`` in the piece) are
 labelled points over its two sides.  An isomorphism of types renumbers the
 pieces over each vertex (keeping shapes) and relabels the points of equal
 length over each half-edge point within each piece, carrying the bijections to
-the bijections; ``Aut(T)`` is the stabiliser.  A cover ``f`` (THEORY.md section
-3) has a type: its pieces are the orbits at each vertex, its bijections the
+the bijections; ``Aut(T)`` is the stabiliser.  A cover ``f`` (docs/theory.md, section
+5) has a type: its pieces are the orbits at each vertex, its bijections the
 ``beta_e``, once the orbits are numbered and the cycles of every ``s_p``
 labelled (a *decoration* of ``f``); different decorations give isomorphic
 types.  The source graph, the node profiles, ``mult`` and connectedness are
@@ -77,7 +77,7 @@ work grows with the number of types, never with the number of covers.
 (canonical forms of coloured graphs), which the tests compare with the fast
 sum.
 
-A hand example (THEORY.md section 7 checked): double covers of an elliptic
+A hand example (checked against docs/theory.md, section 10): double covers of an elliptic
 curve branched over two points, over the nodal rational curve ``g0{1,2} |
 0-0``.  The list engine finds three covers: two unramified over the node with
 ``|Aut| = 2``, ``mult = 1``, and one ramified (``mult = 2``, ``|Aut| = 2``):
@@ -240,7 +240,7 @@ class TypeTally:
         the node profile) and the stable nodes as ``(index in the
         stabilisation's edges, order)`` with order ``sum L/e`` over the chain.
         ``c(D, delta) = sum weight/L * (sum of the orders of the nodes of type
-        delta)`` (THEORY.md section 4: ``#branches / |Aut f| = mult / (L
+        delta)`` (docs/theory.md, section 8: ``#branches / |Aut f| = mult / (L
         |Aut f|)``).
 
         Raises
