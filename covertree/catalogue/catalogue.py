@@ -3,7 +3,12 @@ and the degeneration identity.
 
 For every base stratum ``G`` the total weight ``sum_f mult(f)/|Aut f|`` of the
 covers over a fixed curve of type ``G`` must equal the connected Hurwitz number
-(THEORY.md section 3); :attr:`StratumResult.identity_holds` records the verdict.
+(docs/theory.md, section 7); :attr:`StratumResult.identity_holds` records the verdict.
+
+References
+----------
+J. Harris and D. Mumford, "On the Kodaira dimension of the moduli space of
+curves", Inventiones Mathematicae 67 (1982): admissible covers
 
 Examples
 --------

@@ -4,7 +4,7 @@ Let ``br`` map the space of admissible covers of a Hurwitz problem to the
 target's ``Mbar_{h,b}`` and ``src`` to ``Mbar_G`` (the stabilised source).
 For a base divisor ``D_j`` (a codimension-one stratum: one node ``q``) and a
 boundary divisor ``delta`` of ``Mbar_G`` (``delta_0``, ``delta_1``, ...,
-``delta_{floor(G/2)}``) THEORY.md section 4 gives
+``delta_{floor(G/2)}``) docs/theory.md, section 8, gives
 
     br_* src^* delta = sum_j c(D_j, delta) [D_j]   (near the boundary),
 
@@ -29,12 +29,19 @@ ord(n) over the stable nodes n of type delta``: a germ that meets two branches
 of ``delta`` (for instance two non-separating nodes) counts both.  Each branch
 maps its divisor ``u = 0`` isomorphically onto ``D_j``, hence the formula.
 
-The second self-check of THEORY.md section 4: ``sum_f #branches_f * L_f /
+The second self-check (docs/theory.md, section 7): ``sum_f #branches_f * L_f /
 |Aut f| = H`` for every ``D_j`` (:attr:`PullbackRow.check_holds`).
 
 Coefficients are per labelled divisor; with orbits (the default) one
 representative stands for ``orbit_size`` labelled divisors with the same
 coefficients.
+
+References
+----------
+J. Harris and D. Mumford, "On the Kodaira dimension of the moduli space of
+curves", Inventiones Mathematicae 67 (1982): admissible covers
+P. Deligne and D. Mumford, "The irreducibility of the space of curves of
+given genus", Publications Mathematiques de l'IHES 36 (1969): stable curves
 
 Examples
 --------
@@ -83,7 +90,7 @@ def boundary_divisors(genus: int, n: int = 0) -> list[str]:
     if n:
         from covertree.intersection.boundary import divisor_name, divisors
 
-        names = [divisor_name(genus, n, key) for key in divisors(genus, n)] if 2 * genus - 2 + n > 0 else []
+        names = [divisor_name(genus, n, key) for key in divisors(genus, n)]  # none when 2G - 2 + n <= 0
         if not names:
             raise ProblemError(f"the marked source lands in Mbar_{{{genus},{n}}}, which has no boundary divisor "
                                "to pull back; mark more points or raise the genus")

@@ -17,7 +17,9 @@ from covertree.cli.params import PROFILE, AtomicOutput, OneLineCommand, emit, fo
 from covertree.catalogue.covers import divisor_name
 from covertree.catalogue.local_structure import local_structure
 from covertree.cli.render import fitted_table, table_text, watched
-from covertree.export.catalogue import catalogue_to_csv, catalogue_to_json, catalogue_to_latex, cover_to_jsonl
+from covertree.export.catalogue import (
+    catalogue_to_csv, catalogue_to_json, catalogue_to_latex, contracted_note, cover_to_jsonl, source_heading,
+)
 from covertree.errors import InputError
 from covertree.export.rational import rational_str
 from covertree.export.words import count_noun, profiles_text
@@ -167,10 +169,10 @@ def _report(failures: list) -> None:
         sys.exit(1)
 
 
-def _stratum_table(number: int, s: StratumResult, grouped: bool) -> Table:
+def _stratum_table(number: int, s: StratumResult, grouped: bool, heading: str) -> Table:
     verdict = "holds" if s.identity_holds else "FAILS"
     columns = [("#", "right", True), ("covers", "right", True), ("over nodes", "left", True),
-               ("source", "left", False), ("stable source", "left", True), ("name", "left", False),
+               ("source", "left", False), (heading, "left", True), ("name", "left", False),
                ("|Aut|", "right", True), ("mult", "right", True), ("weight", "right", True),
                ("L", "right", False), ("br", "right", False), ("orders", "left", False)]
     if not grouped:
@@ -215,11 +217,13 @@ def _local_cells(cover) -> tuple[str, str, str]:
 
 
 def _landing_table(cat: Catalogue) -> Table:
-    columns = [("stratum", "right", True), ("base", "left", True), ("stable source", "left", True),
+    heading = source_heading(cat.problem)
+    columns = [("stratum", "right", True), ("base", "left", True), (heading, "left", True),
                ("name", "left", False), ("weight", "right", True)]
     rows = [(str(k), s.base.graph.notation, graph.notation, divisor_name(graph) or "", rational_str(weight))
             for k, s in enumerate(cat.strata, start=1) for graph, weight in s.by_source()]
-    return fitted_table(columns, rows, title="where the boundary lands: weight per stable source and base stratum")
+    return fitted_table(columns, rows, title=f"where the boundary lands: weight per {heading} and base stratum",
+                        caption=contracted_note(cat.problem) or None)
 
 
 def catalogue_table(cat: Catalogue, grouped: bool = True) -> str:
@@ -229,7 +233,8 @@ def catalogue_table(cat: Catalogue, grouped: bool = True) -> str:
     head = Table(title=f"admissible covers: genus {p.genus} over genus {p.target_genus}, degree {p.degree}, "
                        f"profiles {profiles_text(p.profiles)}; Hurwitz number "
                        f"{rational_str(cat.hurwitz_number)}", show_header=False, box=None)
-    tables = (_stratum_table(k, s, grouped) for k, s in enumerate(cat.strata, start=1))
+    heading = source_heading(p)
+    tables = (_stratum_table(k, s, grouped, heading) for k, s in enumerate(cat.strata, start=1))
     return table_text(head, *tables, _landing_table(cat))
 
 

@@ -6,7 +6,7 @@ import json
 
 import click
 
-from covertree.cli.params import PICK, OneLineCommand
+from covertree.cli.params import PICK, OneLineCommand, check_destination
 from covertree.errors import GraphError, InputError
 from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 from covertree.graphs.notation import graph_parts, parse_graph
@@ -58,7 +58,7 @@ def command(notation, cover_file, line, pick, output, dpi):
     indices = (record.get("local_structure") or {}).get("source_edge_indices")
     source_labels = [str(e) for e in indices] if indices else [""] * source.n_nodes
     base_labels = [",".join(map(str, p)) for p in profiles]
-    degree = sum(profiles[0]) if profiles else None
+    degree = record.get("degree") or (sum(profiles[0]) if profiles else None)
     title = f"{source.notation}  ->  {base.notation}"
     over = None
     if indices and degree is not None:

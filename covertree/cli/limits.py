@@ -22,7 +22,7 @@ import click
 from covertree.errors import LimitError
 from covertree.limits import DEFAULT_MAX_WORK, BYTES_PER_STEP, parse_natural
 
-__all__ = ["deadline", "max_work_option", "one_line", "on_terminal", "time_limit_option"]
+__all__ = ["deadline", "max_work_option", "on_terminal", "time_limit_option"]
 
 _POWER = re.compile(r"\s*10\s*\^\s*([0-9]{1,3})\s*", re.ASCII)
 
@@ -60,7 +60,7 @@ def _seconds(ctx, param, value):
 time_limit_option = click.option(
     "--time-limit", "time_limit", type=click.FloatRange(min=0, max=10**7), default=None, metavar="SECONDS",
     callback=_seconds,
-    help="Stop (exit 3, nothing written) when the run is still going after SECONDS, "
+    help="Stop (exit 3, no output file written) when the run is still going after SECONDS, "
          "whether or not it has found anything  [default: no limit].")
 
 
@@ -86,14 +86,6 @@ def deadline(seconds: float | None) -> Iterator[None]:
         signal.signal(signal.SIGALRM, previous)
 
 
-_LONG_WORD = re.compile(r"\S{61,}")
-
-
-def _cut_word(match: re.Match) -> str:
-    word = match.group(0)
-    return f"{word[:40]}...({len(word)} characters)"
-
-
 def on_terminal(label: str, text=None):
     """A spinner with ``label``, the running ``text()`` and the elapsed time on
     stderr when it is a terminal (:func:`covertree.cli.render.running`; rich
@@ -103,20 +95,3 @@ def on_terminal(label: str, text=None):
     from covertree.cli.render import running
 
     return running(label, text, enabled=True)
-
-
-def one_line(message: str, width: int = 400) -> str:
-    """``message`` on one line and at most about ``width`` characters: line
-    breaks become spaces, an overlong middle is cut (the start names the
-    value, the end says what is allowed).
-
-    >>> one_line("a\\nb")
-    'a b'
-    >>> len(one_line("x" * 10000)) < 450
-    True
-    """
-    flat = " ".join(_LONG_WORD.sub(_cut_word, line) for line in message.splitlines())
-    if len(flat) <= width:
-        return flat
-    half = width // 2
-    return f"{flat[:half]} [... {len(flat) - 2 * half} characters cut ...] {flat[-half:]}"

@@ -155,8 +155,25 @@ def stratum_to_dict(result: StratumResult, grouped: bool = False) -> dict:
 
 
 def problem_to_dict(problem, codim: int) -> dict:
-    """The ``"problem"`` object."""
-    return {**problem.to_dict(), "codim": codim}
+    """The ``"problem"`` object; ``"contracted_source"`` is true when the
+    source has no moduli space (genus 1 without marks, genus 0 with at most
+    two), so that ``stable_source`` holds the contracted source."""
+    return {**problem.to_dict(), "codim": codim, "contracted_source": not problem.has_source_space}
+
+
+def source_heading(problem) -> str:
+    """The heading of the stable-source column: ``stable source``, or
+    ``contracted source`` when the source has no moduli space."""
+    return "stable source" if problem.has_source_space else "contracted source"
+
+
+def contracted_note(problem) -> str:
+    """One sentence saying what a contracted source is, or ``""``."""
+    if problem.has_source_space:
+        return ""
+    space = f"Mbar_{{{problem.genus},{problem.n_marks}}}" if problem.n_marks else f"Mbar_{problem.genus}"
+    return (f"{space} does not exist: the contracted source is the source contracted by the "
+            "stabilisation rules, not a point of a moduli space")
 
 
 def catalogue_to_dict(cat: Catalogue, grouped: bool = False) -> dict:
@@ -176,8 +193,12 @@ def catalogue_to_json(cat: Catalogue, grouped: bool = False) -> str:
 def cover_to_jsonl(base, cover: Cover, stratum_number: int | None = None, cover_number: int | None = None) -> str:
     """One JSON line: the ``COVER`` keys plus ``"base"`` (GRAPH) and
     ``"orbit_size"``, and when given ``"stratum_number"`` and
-    ``"cover_number"`` (1-based, as the table numbers strata and covers)."""
-    record = {"base": base.graph.to_dict(), "orbit_size": base.orbit_size, **cover_to_dict(cover)}
+    ``"cover_number"`` (1-based, as the table numbers strata and covers), and
+    ``"degree"`` (so that a line read alone, e.g. by ``draw``, knows it)."""
+    raw = cover.raw
+    degree = sum(k for k, v in zip(raw.source_degrees, raw.source_vertex_over) if v == 0)
+    record = {"base": base.graph.to_dict(), "orbit_size": base.orbit_size, **cover_to_dict(cover),
+              "degree": degree}
     if stratum_number is not None:
         record.update(stratum_number=stratum_number, cover_number=cover_number)
     return json_line(record)
@@ -224,10 +245,13 @@ def catalogue_to_latex(cat: Catalogue, standalone: bool = False, grouped: bool =
 
     ``grouped`` (the default) lists covers whose rows are identical once, with
     their number (``3\times``) in a first column and their summed weight."""
-    header = ["profiles", "source", "stable source", r"$|\mathrm{Aut}|$", "mult", "weight", "$L$", "br", "orders"]
+    header = ["profiles", "source", source_heading(cat.problem), r"$|\mathrm{Aut}|$", "mult", "weight", "$L$", "br", "orders"]
     if grouped:
         header = ["covers", *header]
     rows: list[str] = []
+    if contracted_note(cat.problem):
+        note = contracted_note(cat.problem).replace("Mbar_", r"$\overline{M}_").replace(" does", "$ does", 1)
+        rows += [f"\\multicolumn{{{len(header)}}}{{p{{0.9\\linewidth}}}}{{\\emph{{{note}}}.}} \\\\", r"\midrule"]
     for s in cat.strata:
         if rows:
             rows.append(r"\midrule")

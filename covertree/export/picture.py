@@ -98,16 +98,18 @@ def loop_point(centre: tuple[float, float], angle: float, t: float) -> tuple[flo
 
 def extent(lay: Layout, edges: Sequence[tuple[int, int]], legs: Sequence[Sequence[int]]) -> tuple[float, float, float, float]:
     """Bounding box ``(x0, x1, y0, y1)`` of a drawing: discs, curves, loops,
-    legs and labels."""
+    legs and labels.  Curves count with their control points, as TikZ counts
+    them in the bounding box of a picture, so a box of this size holds it."""
     points = []
     for x, y in lay.positions:
         points += [(x - VERTEX_RADIUS, y - VERTEX_RADIUS), (x + VERTEX_RADIUS, y + VERTEX_RADIUS)]
     for k, (a, b) in enumerate(edges):
-        for i in range(9):
-            if a == b:
-                points.append(loop_point(lay.positions[a], lay.loop_angles[k], i / 8))
-            else:
-                points.append(lay.edge_point(edges, k, i / 8))
+        if a == b:
+            points += loop_curve(lay.positions[a], lay.loop_angles[k])
+        else:
+            points += [lay.edge_point(edges, k, i / 8) for i in range(9)]
+            if lay.bends[k]:
+                points.append(lay.control(edges, k))
         lx, ly = lay.label_point(edges, k)
         points += [(lx - LABEL_HALF[0], ly - LABEL_HALF[1]), (lx + LABEL_HALF[0], ly + LABEL_HALF[1])]
     flat = 0

@@ -10,7 +10,7 @@ side 0 of base edge ``k`` is matched with one of equal length over side 1.
 
 Two covers are isomorphic when an element of ``prod_v S_d`` (relabelling the
 sheets over every base vertex independently) carries one to the other; the
-automorphism group ``Aut(f)`` is the stabiliser (THEORY.md section 3).
+automorphism group ``Aut(f)`` is the stabiliser (docs/theory.md, section 5).
 
 Canonical code
 --------------
@@ -26,6 +26,11 @@ and the labellings attaining it form one orbit of ``Aut(f)``, acted on freely,
 so their number is ``|Aut(f)|``.  The number of labellings tried is at most
 ``d`` times the product of the entry cycle lengths, itself at most the
 multiplicity of the cover.
+
+References
+----------
+J. Harris and D. Mumford, "On the Kodaira dimension of the moduli space of
+curves", Inventiones Mathematicae 67 (1982): admissible covers
 """
 
 from __future__ import annotations

@@ -1,6 +1,6 @@
 """Hurwitz numbers by characters of the symmetric group.
 
-Convention (THEORY.md, section 5; the same everywhere in covertree)
+Convention (docs/theory.md, section 4; the same everywhere in covertree)
 --------------------------------------------------------------------
 A Hurwitz number counts degree-``d`` covers of a genus-``h`` surface with the
 profiles ``mu_1..mu_b`` over **labelled** branch points, each cover weighted by
@@ -40,6 +40,15 @@ Converting to other conventions (never mix them):
 * labelled preimages of the branch points: multiply by ``prod_j |Aut mu_j|``
   (for instance the one-part double Hurwitz numbers of Goulden-Jackson-Vakil
   label the preimages of infinity: theirs = ours x ``|Aut beta|``).
+
+References
+----------
+G. Frobenius, "Uber Gruppencharaktere", Sitzungsberichte der Preussischen
+Akademie der Wissenschaften zu Berlin (1896): Frobenius' formula
+A. D. Mednykh, "Determination of the number of nonequivalent coverings over
+a compact Riemann surface", Soviet Mathematics Doklady 19 (1978)
+S. K. Lando and A. K. Zvonkin, "Graphs on Surfaces and Their Applications"
+(2004), appendix A: Hurwitz numbers by characters, connected numbers
 
 Examples
 --------
@@ -218,7 +227,7 @@ def connected_hurwitz(
     degree: int, target_genus: int, profiles: Sequence[Sequence[int]]
 ) -> Fraction:
     """The connected Hurwitz number ``H`` (inclusion-exclusion over the orbit of
-    sheet 0, THEORY.md section 5).
+    sheet 0, docs/theory.md, section 4).
 
     Labelled branch points, weight ``1/|Aut|``, unlabelled preimages.  For
     unordered branch points divide by the symmetry of the list of profiles; for

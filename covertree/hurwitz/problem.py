@@ -7,6 +7,11 @@ Branch points are labelled ``1..b`` in the order of ``profiles``.  The target
 ``(h, b)`` must be a stable pointed curve (``2h - 2 + b > 0``); to count
 unramified covers of an elliptic curve, mark one point with profile ``1^d``.
 
+References
+----------
+A. Hurwitz, "Uber Riemann'sche Flachen mit gegebenen Verzweigungspunkten",
+Mathematische Annalen 39 (1891): the Riemann-Hurwitz formula
+
 Examples
 --------
 >>> p = HurwitzProblem.build(degree=2, target_genus=1, genus=2)
@@ -181,6 +186,21 @@ class HurwitzProblem:
     def n_marks(self) -> int:
         """Number of legs ``n`` of the source (marked points)."""
         return len(self.marks)
+
+    @property
+    def has_source_space(self) -> bool:
+        """Whether ``Mbar_{g,n}`` of the source exists (``2g - 2 + n > 0``).
+
+        When it does not (genus 0 with at most two legs, genus 1 without
+        legs), the "stable source" of a cover is the source contracted as far
+        as the stabilisation rules go, not a point of a moduli space.
+
+        >>> HurwitzProblem.build(2, 0, genus=1).has_source_space
+        False
+        >>> HurwitzProblem.build(2, 0, genus=1, marks=["1"]).has_source_space
+        True
+        """
+        return 2 * self.genus - 2 + self.n_marks > 0
 
     def unmarked(self) -> "HurwitzProblem":
         """The same problem without marks."""

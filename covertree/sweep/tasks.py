@@ -12,8 +12,8 @@ profiles)``, strata in the order of
 
 The result of a task is a :class:`StratumSummary`: the number of covers over
 a fixed curve of the stratum, their total weight ``sum mult/|Aut|``, the
-Hurwitz number (the degeneration identity compares the two, THEORY.md
-section 3) and the weight landing on each boundary divisor ``delta_i`` of the
+Hurwitz number (the degeneration identity compares the two, docs/theory.md,
+section 7) and the weight landing on each boundary divisor ``delta_i`` of the
 source space ``Mbar_g`` after stabilisation (the rest, including smooth
 stable sources, as ``"other"``).
 

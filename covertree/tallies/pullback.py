@@ -1,5 +1,5 @@
-"""Pullbacks of the boundary divisors of ``Mbar_G`` from types (THEORY.md
-section 4), without listing covers.
+"""Pullbacks of the boundary divisors of ``Mbar_G`` from types (docs/theory.md,
+section 8), without listing covers.
 
 For a base divisor ``D`` (one node with profile ``e_1..e_k``, ``L = lcm e_i``)
 a cover ``f`` has ``#branches = prod e_i / L = mult(f)/L`` branches, so
@@ -13,6 +13,11 @@ nodes of type ``delta`` (:mod:`covertree.catalogue.local_structure`), both
 functions of the entry.  The branch total ``sum_f #branches * L / |Aut f|`` is
 the total weight.  The rows are :class:`covertree.catalogue.pullback.PullbackRow`
 objects with ``n_covers = 0`` (the type engine lists no covers).
+
+References
+----------
+J. Harris and D. Mumford, "On the Kodaira dimension of the moduli space of
+curves", Inventiones Mathematicae 67 (1982): admissible covers
 
 Examples
 --------

@@ -73,7 +73,7 @@ def test_degeneration_identity_on_every_stratum(args):
 def _tuple_count_hurwitz(d, types):
     """Connected Hurwitz number of P^1 with the given profiles, by counting the
     tuples of permutations with product 1 (all transitive here: one type is a
-    d-cycle) and dividing by d! (THEORY.md section 5, directly)."""
+    d-cycle) and dividing by d! (docs/theory.md, section 4, directly)."""
     perms = list(itertools.permutations(range(d)))
     pools = [[p for p in perms if cycle_type(p) == t] for t in types[:-1]]
     count = sum(

@@ -1,6 +1,6 @@
 """Catalogues worked out by hand, compared with the engine exactly.
 
-Each list below was computed by hand in the model of THEORY.md section 3 before
+Each list below was computed by hand in the model of docs/theory.md, section 5 before
 being compared: local monodromy at each base component, the gluings of node
 preimages up to the relabelling groups, |Aut| as the stabiliser, mult as the
 product of the ramification indices over the nodes.  A cover is written
@@ -126,7 +126,7 @@ def test_two_rational_components_meeting_twice():
 
 
 def test_the_five_strata_of_mbar_1_2_are_all_listed():
-    # Mbar_{1,2} has 5 strata (by hand, THEORY.md section 9); each total is
+    # Mbar_{1,2} has 5 strata (by hand); each total is
     # H = 2 = 2 [q^2] F_2 (Dijkgraaf 1995; OEIS A170991)
     cat = build_catalogue(HurwitzProblem.build(2, 1, genus=2), max_codim=2, labeled=True)
     # the numbers of covers of the five hand lists above
@@ -142,7 +142,7 @@ def test_the_five_strata_of_mbar_1_2_are_all_listed():
 # Six simple branch points on P^1, degree 2: the hyperelliptic genus-2 curves,
 # H = 1/2 (one cover, the hyperelliptic involution).  Boundary divisors of
 # Mbar_{0,6}: the splits 2|4 (15 of them) and 3|3 (10), 2^5 - 6 - 1 = 25 in all
-# (THEORY.md section 9, classical).
+# (classical, common knowledge).
 SIMPLE6 = [(2,)] * 6
 
 

@@ -6,7 +6,7 @@ edges of the base.
 The outside side is the brute-force oracle (:mod:`tests.oracle.brute_covers`):
 its covers carry the index of every source node, and the orders along a branch
 are recomputed here by a stabilisation of our own that tracks the merged chains
-(THEORY.md section 3: rational tails dropped, rational bridges merged, the
+(docs/theory.md, section 8: rational tails dropped, rational bridges merged, the
 order of a merged node the sum of ``L/e`` over its chain), with ``L`` and the
 number of branches counted as orbits of the monodromy around ``t = 0``
 (:func:`tests.catalogue.test_local_structure.brute_branches`).

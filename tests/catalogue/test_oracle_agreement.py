@@ -70,7 +70,7 @@ def engine_shape(cover) -> tuple:
 
 
 def tiny_stabilise(genera, edges) -> CurveGraph:
-    """Contract rational tails and rational bridges (THEORY.md section 3), written
+    """Contract rational tails and rational bridges (docs/theory.md, section 8), written
     independently of covertree.stabilisation: vertices are dict keys, edges a list
     of pairs; at each step drop a genus-0 vertex meeting one edge end, or merge
     the two edges of a genus-0 vertex meeting two ends of distinct edges that are

@@ -205,3 +205,40 @@ def test_an_interrupted_sweep_says_what_is_kept(tmp_path, monkeypatch):
     monkeypatch.undo()
     resumed = run("sweep", "-g", "2", "-t", "1", "-d", "2..4", "--store", str(store))
     assert resumed.exit_code == 0 and "7 computed, 2 found in the store" in resumed.stderr
+
+
+@pytest.mark.parametrize("problem, contracted", [
+    (["-g", "1", "-t", "0", "-d", "2"], True),             # no Mbar_1
+    (["-g", "1", "-t", "0", "-d", "2", "--mark", "1"], False),  # Mbar_{1,1} exists
+    (["-g", "2", "-t", "0", "-d", "2"], False),
+])
+def test_contracted_source_is_said_plainly(problem, contracted):
+    # A genus-1 source without marks has no stable model: every medium says that
+    # what it prints is the contracted source.
+    table = run("catalogue", *problem, env={"COLUMNS": "200"}).stdout
+    doc = json.loads(run("catalogue", *problem, "-f", "json").stdout)
+    latex = run("catalogue", *problem, "-f", "latex").stdout
+    assert doc["problem"]["contracted_source"] is contracted
+    assert ("contracted source" in table) is contracted
+    assert ("stable source" in table) is not contracted
+    assert ("not a point of a moduli space" in table) is contracted
+    assert ("contracted source" in latex) is contracted
+    if contracted:
+        sources = {c["stable_source"]["notation"] for s in doc["strata"] for c in s["covers"]}
+        assert sources == {"g1", "g0 | 0-0"}
+
+
+def test_a_smooth_cover_is_drawn_with_its_degree(tmp_path, monkeypatch):
+    # A cover over the open stratum has no node profiles to read the degree from:
+    # the JSON line carries it, and the arrow is marked with it.
+    pytest.importorskip("matplotlib")
+    import covertree.export.draw as drawing
+
+    lines = run("catalogue", *PROBLEM, "-f", "jsonl").stdout.splitlines()
+    assert lines and {json.loads(x)["degree"] for x in lines} == {3}
+    (tmp_path / "c.jsonl").write_text("\n".join(lines) + "\n")
+    seen = []
+    monkeypatch.setattr(drawing, "draw_pair", lambda *a, **k: seen.append(a[4]))
+    result = run("draw", "-c", str(tmp_path / "c.jsonl"), "--pick", "1:1", "-o", str(tmp_path / "c.png"))
+    assert result.exit_code == 0, result.output
+    assert json.loads(lines[0])["edge_profiles"] == [] and seen == [3]

@@ -85,11 +85,7 @@ def test_overfull_points_reads_the_log():
 @pytest.mark.skipif(shutil.which("pdflatex") is None, reason="pdflatex is not installed")
 @pytest.mark.parametrize("document_class", CLASSES)
 @pytest.mark.parametrize("name", sorted(FRAGMENTS))
-def test_fragment_pastes_cleanly(tmp_path, name, document_class, request):
-    if name.startswith("strata-tikz"):
-        # Known: rows of strata pictures still overrun the line by up to 18 pt.
-        request.applymarker(pytest.mark.xfail(reason="strata TikZ rows overrun the line by up to 18 pt",
-                                              strict=False))
+def test_fragment_pastes_cleanly(tmp_path, name, document_class):
     log = compile_log(tmp_path, document(document_class, fragment(name)))
     too_wide = [x for x in overfull_points(log) if x > TOLERANCE_PT]
     assert not too_wide, f"{name} in {document_class}: overfull by {too_wide} pt"

@@ -1,6 +1,6 @@
 """Hurwitz numbers against published formulas and sequences.
 
-Convention under test (THEORY.md section 5): labelled branch points, weight
+Convention under test (docs/theory.md, section 4): labelled branch points, weight
 1/|Aut|, unlabelled preimages.
 """
 

@@ -2,7 +2,7 @@
 
 This module is a test oracle: it lists, by labelled brute force, every admissible
 cover with connected source over a fixed curve of a given base stratum, in the
-combinatorial model of THEORY.md section 3, and is deliberately independent of
+combinatorial model of docs/theory.md, section 5, and is deliberately independent of
 the enumeration engine (it imports nothing from ``covertree.monodromy``,
 ``covertree.gluing`` or ``covertree.catalogue``; only the permutation and
 partition helpers).

@@ -1,7 +1,7 @@
 """Tests of the brute-force cover oracle.
 
 The oracle is checked against (a) hand lists of covers, (b) the degeneration
-identity of THEORY.md section 3 (sum of mult/|Aut| over a fixed base curve of any
+identity of docs/theory.md, section 7 (sum of mult/|Aut| over a fixed base curve of any
 stratum equals the connected Hurwitz number), with the Hurwitz number computed here
 by an independent count of transitive permutation tuples, and (c) its own literal
 variant (``method="full"``: orbits of all labelled data under prod_v S_d).
@@ -87,7 +87,7 @@ def keys(covers):
 
 # ----------------------------------------------------------------- strata used below
 
-# The 5 strata of Mbar_{1,2} (by hand, THEORY section 9), raw: (genera, edges, legs).
+# The 5 strata of Mbar_{1,2} (by hand), raw: (genera, edges, legs).
 MBAR_1_2 = {
     "open": ([1], [], [[1, 2]]),
     "irreducible": ([0], [(0, 0)], [[1, 2]]),
@@ -242,7 +242,7 @@ def test_identity_genus0_base(d, profiles):
 
 
 def test_identity_genus0_base_value():
-    # d^(d-3) (2d-2)!/d! (Hurwitz 1891, THEORY section 9): d = 3 gives 4.
+    # d^(d-3) (2d-2)!/d! (Hurwitz 1891; common knowledge): d = 3 gives 4.
     assert hurwitz_by_tuples(3, 0, [(2, 1)] * 4) == 4
 
 

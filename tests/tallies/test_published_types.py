@@ -4,7 +4,7 @@ most one (each stratum's total is the Hurwitz number by the degeneration
 identity, so each must equal the published coefficient).
 
 Convention: labelled branch points, weight 1/|Aut|, unlabelled preimages
-(THEORY.md section 5), the convention of the sequences below.
+(docs/theory.md, section 4), the convention of the sequences below.
 """
 
 
