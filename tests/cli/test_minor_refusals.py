@@ -73,3 +73,13 @@ def test_draw_refuses_hostile_cover_files(tmp_path, data, words):
     cover.write_bytes(data)
     one_line(invoke("draw", "--cover", str(cover), "-o", str(image)), "line 1", *words)
     assert not image.exists()
+
+
+@pytest.mark.parametrize("args, words", [
+    (["nosuch"], ["No such command 'nosuch'", "Commands: catalogue"]),
+    (["--bogus"], ["No such option '--bogus'"]),
+    (["x" * 24000], ["No such command", "characters)"]),
+])
+def test_unknown_commands_and_group_options_in_one_line(args, words):
+    line = one_line(invoke(*args), *words)
+    assert len(line) < LINE_WIDTH + 40
