@@ -8,12 +8,47 @@ reported once, with ``|Aut f|`` and ``mult(f) = prod_q prod_i e_{q,i}``
 
 Symmetry breaking
 -----------------
-Matchings are generated port by port.  A port may be matched into a piece none
-of whose ports is matched yet (a *pristine* piece) only if no earlier identical
-pristine piece over the same vertex exists and the port is least in its orbit
-under the piece's deck group: both moves are automorphisms of the partial
-matching, so every class is still reached; the classes reached more than once
-are merged by their canonical code (:mod:`covertree.gluing.structure`).
+Fix a choice of local covers.  Its pieces are in normal form, so the
+relabellings of ``prod_v S_d`` that keep the choice are the group ``G``
+permuting identical pieces over each vertex (*twins*) and acting on each piece
+by its deck group; covers of this choice are the ``G``-orbits of connected
+matchings, ``Aut(f)`` the stabilisers.  Edges are taken in a fixed order; over
+each edge the ports of one side (the *left* side) are matched in a fixed order
+``x_1, x_2, ...`` to ports of the other side (the *candidates*, in a fixed
+order).  A matching ``M`` is thus a word ``M(x_1) M(x_2) ...`` and the words
+of an orbit have a lexicographic least one, ``M_0``.  A port is *pristine*
+when no port of its piece occurs in the word so far.  Three rules prune the
+search; each says that some ``g`` in ``G`` fixing the prefix ``x_1..x_{s-1}``
+and its images letter by letter would give a smaller letter at ``x_s``, so
+``M_0`` obeys all three at once and every orbit is still reached:
+
+1. *(candidate twins)* ``x_s`` is not matched into a pristine piece ``q`` while
+   an earlier pristine twin ``i`` of ``q`` (other than the piece of ``x_s``)
+   exists: swapping ``i`` and ``q`` fixes the prefix and ``x_s`` and moves the
+   letter to the same port of ``i``, which comes first.
+2. *(candidate deck)* a port of a pristine piece ``q`` (not that of ``x_s``)
+   is a candidate only if it is least in its orbit under the deck group of
+   ``q``: a deck transformation of ``q`` moving it to a lesser port fixes the
+   prefix and ``x_s``.
+3. *(left orbits)* over an edge joining two distinct vertices, when ``x_s`` is
+   the first port of a pristine piece ``L``, the ports ``y`` of ``L`` and of
+   its pristine twins in the orbit of ``x_s`` (deck transformations of the
+   twins, the twins permuted) must receive later letters than ``x_s``: for
+   ``g`` with ``g(y) = x_s``, ``g`` fixes the prefix and every candidate
+   (they lie over the other vertex), and ``gM`` has the letter ``M(y)`` at
+   ``x_s``; so ``M_0(x_s) < M_0(y)``.
+
+The rules are necessary conditions for the same least word, so they are
+compatible; together they leave few repeats (a symmetry of a partial matching
+that moves matched pieces is not used), and those are dropped by their
+canonical code (:mod:`covertree.gluing.structure`), counted in
+:class:`GluingStats`.
+
+References
+----------
+B. D. McKay, Isomorph-free exhaustive generation, *J. Algorithms* 26 (1998),
+306-324 (orbit representatives by a canonical choice among the extensions of
+each partial object; here the least word, tested by the rules above).
 
 Examples
 --------
@@ -41,9 +76,10 @@ from math import factorial, prod
 
 from covertree.errors import IdentityError
 from covertree.graphs.curve_graph import CurveGraph
-from covertree.gluing.structure import Glued, Port, canonical_code, least_cycles, piece_cycles
+from covertree.gluing.structure import Glued, Port, canonical_code, piece_cycles
 from covertree.monodromy.local import LocalCover, local_covers, special_points
 from covertree.monodromy.pieces import Piece
+from covertree.unionfind import DisjointSets
 
 
 @dataclass(frozen=True)
@@ -81,13 +117,30 @@ class GluedCover:
     source_legs: tuple[int, ...] = ()
 
 
+@dataclass
+class GluingStats:
+    """Counters of one enumeration (filled in when passed to
+    :func:`glued_covers`): matchings reaching the last port, the connected
+    ones (each given a canonical code), and the repeats among those (the same
+    cover reached again, dropped)."""
+
+    matchings: int = 0
+    codes: int = 0
+    repeats: int = 0
+
+    @property
+    def covers(self) -> int:
+        """Distinct covers found (before marking)."""
+        return self.codes - self.repeats
+
+
 @lru_cache(maxsize=256)
 def _local_covers(degree: int, genus: int, profiles: tuple) -> tuple[LocalCover, ...]:
     return tuple(local_covers(degree, genus, profiles))
 
 
 def glued_covers(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]],
-                 marks: Sequence[tuple[int, int]] = ()) -> Iterator[GluedCover]:
+                 marks: Sequence[tuple[int, int]] = (), stats: GluingStats | None = None) -> Iterator[GluedCover]:
     """Every admissible cover with connected source over a fixed curve of type
     ``base`` (legs ``j`` of profile ``profiles[j-1]``), each class once, in a
     deterministic order, streamed as found.
@@ -95,52 +148,87 @@ def glued_covers(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]
     With ``marks`` (one ``(J, e)`` per leg of the source,
     :mod:`covertree.hurwitz.marks`) every marked cover is listed once: the
     labellings of the marked points of each cover, up to its automorphisms.
+    ``stats``, when given, counts the work (:class:`GluingStats`).
 
     >>> from covertree.graphs.curve_graph import StableCurveGraph
     >>> base = StableCurveGraph([(1, [1])])
     >>> [(c.automorphisms, c.source_legs) for c in glued_covers(base, 2, [(1, 1)], [(1, 1)])]
     [(1, (0,)), (1, (0,)), (1, (0,))]
+    >>> stats = GluingStats()
+    >>> base = StableCurveGraph([(0, [1]), (0, [2])], nodes=[(0, 1), (0, 1)])
+    >>> len(list(glued_covers(base, 4, [(2, 1, 1)] * 2, stats=stats))), stats.covers, stats.repeats
+    (12, 12, 1)
     """
     specs = special_points(base)
+    stats = GluingStats() if stats is None else stats
     for choice in balanced_choices(base, degree, profiles):
-        for cover in _gluings(base, specs, choice, marks):
-            yield cover
+        yield from _gluings(base, specs, choice, marks, stats)
 
 
 def balanced_choices(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]]) -> Iterator[list[LocalCover]]:
     """Every choice of one local cover per base vertex with equal profiles
-    across each node (the balancing condition)."""
+    across each node (the balancing condition), as a list by vertex.
+
+    Vertices are visited in :func:`_vertex_order`; at each, the profiles at
+    the half-edges to vertices already chosen are prescribed like those of
+    legs, so only local covers that balance are ever built."""
     specs = special_points(base)
-    options = []
-    for v, spec in enumerate(specs):
-        prof = tuple(tuple(profiles[s[1] - 1]) if s[0] == "leg" else None for s in spec)
-        options.append(_local_covers(degree, base.vertex_genera[v], prof))
-    yield from _balanced_choices(base, specs, options)
+    order = _vertex_order(base, specs)
+    done = {v: n for n, v in enumerate(order)}
+    links = _links(base, specs, done)
+    loops = [[(_half_index(specs, v, k, 0), _half_index(specs, v, k, 1))
+              for k, (i, j) in enumerate(base.nodes) if i == j == v] for v in range(len(specs))]
+    chosen: list[LocalCover | None] = [None] * len(specs)
+
+    def options(v: int) -> list[LocalCover]:
+        given = {p: chosen[a].profiles[pa] for p, a, pa in links[v]}
+        prof = tuple(tuple(profiles[sp[1] - 1]) if sp[0] == "leg" else given.get(p)
+                     for p, sp in enumerate(specs[v]))
+        return [c for c in _local_covers(degree, base.vertex_genera[v], prof)
+                if all(c.profiles[x] == c.profiles[y] for x, y in loops[v])]
+
+    def rec(n: int) -> Iterator[list[LocalCover]]:
+        if n == len(order):
+            yield list(chosen)
+            return
+        v = order[n]
+        for cover in options(v):
+            chosen[v] = cover
+            yield from rec(n + 1)
+        chosen[v] = None
+
+    yield from rec(0)
+
+
+def _vertex_order(base: CurveGraph, specs: list) -> list[int]:
+    """Vertices with legs first (by index), then repeatedly the vertex with the
+    most half-edges towards those already placed (then the least index)."""
+    order = [v for v, spec in enumerate(specs) if any(sp[0] == "leg" for sp in spec)] or [0]
+    while len(order) < len(specs):
+        placed = set(order)
+
+        def towards(v: int) -> int:
+            return sum((i in placed) + (j in placed) for i, j in base.nodes if v in (i, j) and i != j)
+
+        rest = [v for v in range(len(specs)) if v not in placed]
+        order.append(max(rest, key=lambda v: (towards(v), -v)))
+    return order
+
+
+def _links(base: CurveGraph, specs: list, done: dict[int, int]) -> list[list[tuple[int, int, int]]]:
+    """Per vertex ``v``: ``(point of v, earlier vertex a, point of a)`` for
+    each node from ``v`` to a vertex visited before it."""
+    links: list[list[tuple[int, int, int]]] = [[] for _ in specs]
+    for k, (i, j) in enumerate(base.nodes):
+        if i != j:
+            hi, hj = _half_index(specs, i, k, 0), _half_index(specs, j, k, 1)
+            (_, a, pa), (_, b, pb) = sorted([(done[i], i, hi), (done[j], j, hj)])
+            links[b].append((pb, a, pa))
+    return links
 
 
 def _half_index(specs: list, v: int, k: int, side: int) -> int:
     return specs[v].index(("half", k, side))
-
-
-def _balanced_choices(base: CurveGraph, specs: list, options: list) -> Iterator[list[LocalCover]]:
-    """Choices of one local cover per vertex with equal profiles across nodes."""
-    checks: list[list[tuple]] = [[] for _ in specs]
-    for k, (i, j) in enumerate(base.nodes):
-        later = max(i, j)
-        checks[later].append((i, _half_index(specs, i, k, 0), j, _half_index(specs, j, k, 1)))
-    chosen: list[LocalCover] = []
-
-    def rec(v: int) -> Iterator[list[LocalCover]]:
-        if v == len(specs):
-            yield list(chosen)
-            return
-        for cover in options[v]:
-            chosen.append(cover)
-            if all(chosen[a].profiles[pa] == chosen[b].profiles[pb] for a, pa, b, pb in checks[v]):
-                yield from rec(v + 1)
-            chosen.pop()
-
-    yield from rec(0)
 
 
 class _Matcher:
@@ -159,9 +247,14 @@ class _Matcher:
             seen.update(base.nodes[k])
         self.one_each = len(self.pieces) == len(set(self.vertex))
         self.twins = self._twins()
-        self.least = self._least_ports()
+        self.decks = [self._deck_actions(i) for i in range(len(self.pieces))]
+        self.fixed: list[list[tuple[int, int]]] = [[] for _ in self.pieces]
+        self.orbits = [self._left_orbits(base, side) for side in self.sides]
+        self.loop = [base.nodes[k][0] == base.nodes[k][1] for _l, _r, k, _f in self.sides]
         self.touched = [0] * len(self.pieces)
         self.used: set[Port] = set()
+        self.floor: dict[Port, int] = {}
+        self.copies: list[_Copies] = []
 
     @staticmethod
     def _edge_order(base: CurveGraph) -> list[int]:
@@ -207,10 +300,41 @@ class _Matcher:
             for j in range(len(self.pieces))
         ]
 
-    def _least_ports(self) -> set[Port]:
-        """Ports least in their orbit under their piece's deck group."""
-        return {(j, p, c) for j, piece in enumerate(self.pieces)
-                for p in self.halves[j] for c in least_cycles(piece, p)}
+    def _deck_actions(self, i: int) -> list[dict[tuple[int, int], int]]:
+        """How each deck transformation of piece ``i`` but the identity moves
+        its ports: ``(point, cycle) -> cycle``."""
+        piece, out = self.pieces[i], []
+        for g in piece.centraliser:
+            if any(g[x] != x for x in range(piece.degree)):
+                act = {}
+                for p in self.halves[i]:
+                    cyc = self.glued.port_cycles[i][p]
+                    where = {x: n for n, cy in enumerate(cyc) for x in cy}
+                    act.update({(p, c): where[g[cy[0]]] for c, cy in enumerate(cyc)})
+                out.append(act)
+        return out
+
+    def _moves(self, i: int, extra: tuple[int, int] | None = None) -> Iterator[dict[tuple[int, int], int]]:
+        """The deck actions of piece ``i`` fixing each of its used ports (and
+        ``extra``)."""
+        fixed = self.fixed[i] if extra is None else self.fixed[i] + [extra]
+        for act in self.decks[i]:
+            if all(act[f] == f[1] for f in fixed):
+                yield act
+
+    def _left_orbits(self, base: CurveGraph, side: tuple) -> list[list[Port]]:
+        """Per left port of an edge between distinct vertices: the ports of
+        the later twins of its piece in the orbit of the same port under their
+        deck groups (rule 3 of the module docstring, for a pristine piece);
+        nothing over a loop."""
+        left, _right, k, _flipped = side
+        if base.nodes[k][0] == base.nodes[k][1]:
+            return [[] for _ in left]
+        out = []
+        for (i, p, c), _length in left:
+            orbit = {c} | {act[(p, c)] for act in self.decks[i]}
+            out.append([(j, p, n) for j in range(i + 1, len(self.pieces)) if i in self.twins[j] for n in sorted(orbit)])
+        return out
 
     def matchings(self) -> Iterator[dict[Port, Port]]:
         yield from self._match(0, 0)
@@ -220,28 +344,71 @@ class _Matcher:
             yield self.glued.partner
             return
         left, right = self.sides[e][:2]
+        if t == 0:
+            self.copies.append(_Copies(self, right))
         if t == len(left):
+            copies = self.copies.pop()
             yield from self._match(e + 1, 0)
-            return
-        port, length = left[t]
-        for cand, clen in right:
-            if clen != length or cand in self.used or not self._allowed(port[0], cand):
-                continue
-            self._pair(port, cand, +1)
-            yield from self._match(e, t + 1)
-            self._pair(port, cand, -1)
+            self.copies.append(copies)
+        else:
+            yield from self._match_port(e, t, left[t], right)
+        if t == 0:
+            self.copies.pop()
 
-    def _allowed(self, owner: int, cand: Port) -> bool:
+    def _match_port(self, e: int, t: int, left_port: tuple[Port, int], right: list) -> Iterator[dict[Port, Port]]:
+        port, length = left_port
+        copies = self.copies[-1]
+        orbit = [] if self.touched[port[0]] else list(self.orbits[e][t])
+        if not self.loop[e]:
+            orbit += [(port[0], port[1], act[port[1:]]) for act in self._moves(port[0])
+                      if act[port[1:]] != port[2]]
+        for rank in range(self.floor.get(port, -1) + 1, len(right)):
+            cand, clen = right[rank]
+            if clen != length or cand in self.used or not self._allowed(port, cand) \
+                    or not copies.allowed(port, cand):
+                continue
+            pending = copies.register(port, rank)
+            self._pair(port, cand, +1)
+            raised = self._raise(orbit, rank)
+            yield from self._match(e, t + 1)
+            self._lower(raised)
+            self._pair(port, cand, -1)
+            copies.unregister(pending)
+
+    def _raise(self, orbit: Sequence[Port], rank: int) -> list[tuple[Port, int]]:
+        """Make the ports of ``orbit`` take candidates after ``rank`` (rule 3);
+        return the old floors."""
+        raised = []
+        for y in orbit:
+            old = self.floor.get(y, -1)
+            if rank > old:
+                raised.append((y, old))
+                self.floor[y] = rank
+        return raised
+
+    def _lower(self, raised: list[tuple[Port, int]]) -> None:
+        for y, old in reversed(raised):
+            self.floor[y] = old
+
+    def _allowed(self, port: Port, cand: Port) -> bool:
+        """Rule 2: no deck transformation of the candidate's piece fixing its
+        used ports (and ``port``) moves ``cand`` to a lesser port (rule 1 is
+        :meth:`_Copies.allowed`)."""
         q = cand[0]
-        if q == owner or self.touched[q]:
+        if not self.decks[q]:
             return True
-        if any(not self.touched[i] and i != owner for i in self.twins[q]):
-            return False
-        return cand in self.least
+        extra = port[1:] if q == port[0] else None
+        return all(act[cand[1:]] >= cand[2] for act in self._moves(q, extra))
 
     def _pair(self, a: Port, b: Port, step: int) -> None:
         self.touched[a[0]] += step
         self.touched[b[0]] += step
+        self.copies[-1].busy(a[0], b[0], step)
+        for x in (a, b):
+            if step > 0:
+                self.fixed[x[0]].append(x[1:])
+            else:
+                self.fixed[x[0]].pop()
         if step > 0:
             self.used.add(b)
             self.glued.partner[a], self.glued.partner[b] = b, a
@@ -252,27 +419,105 @@ class _Matcher:
     def connected(self) -> bool:
         if self.one_each:
             return True  # one piece per vertex of a connected base
-        parent = list(range(len(self.pieces)))
-
-        def find(i: int) -> int:
-            while parent[i] != i:
-                parent[i] = parent[parent[i]]
-                i = parent[i]
-            return i
-
+        sets = DisjointSets(len(self.pieces))
         joins, needed = 0, len(self.pieces) - 1
         for a, b in self.glued.partner.items():
-            ra, rb = find(a[0]), find(b[0])
-            if ra != rb:
-                parent[ra] = rb
+            if sets.union(a[0], b[0]):
                 joins += 1
                 if joins == needed:
                     return True
         return False
 
 
+class _Copies:
+    """The components of the matching of the edges before the current one
+    that are copies of each other (the same pieces over the same vertices,
+    matched alike), and the rules 1 and 4 they give over the current edge.
+
+    ``images[q]`` lists, for each copy ``K'`` of the component of piece ``q``,
+    the swap of the two components (piece to piece) and the id of ``K'``; a
+    component is *busy* once one of its ports is used over the current edge,
+    and only idle components are swapped.
+    """
+
+    def __init__(self, m: _Matcher, right: list) -> None:
+        self.comp = [-1] * len(m.pieces)
+        groups: dict[tuple, list[list[int]]] = {}
+        for q in range(len(m.pieces)):
+            if self.comp[q] < 0:
+                order, key = _component(m, q)
+                for r in order:
+                    self.comp[r] = q
+                groups.setdefault(key, []).append(order)
+        self.images: list[list[tuple[int, dict[int, int]]]] = [[] for _ in m.pieces]
+        for orders in groups.values():
+            for a in orders:
+                for b in orders:
+                    if a is not b:
+                        swap = {**dict(zip(a, b)), **dict(zip(b, a))}
+                        for q in b:
+                            self.images[q].append((a[0], swap))
+        self.n_busy = [0] * len(m.pieces)
+        self.rank = {cand: r for r, (cand, _length) in enumerate(right)}
+        self.pending: dict[Port, list[tuple[int, dict[int, int]]]] = {}
+
+    def busy(self, a: int, b: int, step: int) -> None:
+        self.n_busy[self.comp[a]] += step
+        self.n_busy[self.comp[b]] += step
+
+    def allowed(self, port: Port, cand: Port) -> bool:
+        """Rules 1 and 4: ``cand`` is not the image of a lesser port under a
+        swap of idle copies that fixes ``port``; ``port`` meets the bounds
+        left by the first ports of its copies."""
+        q, own = cand[0], self.comp[port[0]]
+        if not self.n_busy[self.comp[q]]:
+            for other, swap in self.images[q]:
+                if swap[q] < q and not self.n_busy[other] and own != other and own != self.comp[q]:
+                    return False
+        for bound, swap in self.pending.get(port, ()):
+            if self.rank[(swap.get(q, q), cand[1], cand[2])] < bound:
+                return False
+        return True
+
+    def register(self, port: Port, rank: int) -> list[Port]:
+        """Rule 4, before ``port`` (the first of an idle component) takes the
+        candidate of ``rank``: each copy's port answering to it must not take
+        a candidate whose swap comes before."""
+        owner = port[0]
+        if self.n_busy[self.comp[owner]]:
+            return []
+        ports = []
+        for other, swap in self.images[owner]:
+            if not self.n_busy[other]:
+                y = (swap[owner], port[1], port[2])
+                self.pending.setdefault(y, []).append((rank, swap))
+                ports.append(y)
+        return ports
+
+    def unregister(self, ports: list[Port]) -> None:
+        for y in ports:
+            self.pending[y].pop()
+
+
+def _component(m: _Matcher, start: int) -> tuple[list[int], tuple]:
+    """The pieces of the component of ``start`` in the current matching,
+    breadth-first from ``start`` (ports by special point and cycle), and its
+    shape: pieces, vertices and matched ports in that order."""
+    order, pos, pattern = [start], {start: 0}, []
+    for q in order:
+        for p in m.halves[q]:
+            for c in range(len(m.glued.port_cycles[q][p])):
+                other = m.glued.partner.get((q, p, c))
+                if other is not None and other[0] not in pos:
+                    pos[other[0]] = len(order)
+                    order.append(other[0])
+                pattern.append(None if other is None else (pos[other[0]], other[1], other[2]))
+    key = (tuple(m.pieces[q] for q in order), tuple(m.vertex[q] for q in order), tuple(pattern))
+    return order, key
+
+
 def _gluings(base: CurveGraph, specs: list, choice: list[LocalCover],
-             marks: Sequence[tuple[int, int]] = ()) -> Iterator[GluedCover]:
+             marks: Sequence[tuple[int, int]], stats: GluingStats) -> Iterator[GluedCover]:
     m = _Matcher(base, specs, choice)
     candidates = _mark_candidates(base, specs, m, marks)
     edge_profiles = tuple(
@@ -281,11 +526,14 @@ def _gluings(base: CurveGraph, specs: list, choice: list[LocalCover],
     )
     mult = prod(x for prof in edge_profiles for x in prof)
     seen: set[tuple] = set()
-    for partner in m.matchings():
+    for _partner in m.matchings():
+        stats.matchings += 1
         if not m.connected():
             continue
+        stats.codes += 1
         code, aut = canonical_code(m.glued)
         if code in seen:
+            stats.repeats += 1
             continue
         seen.add(code)
         record = _record(m, code, aut, mult, edge_profiles)

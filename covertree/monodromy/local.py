@@ -80,13 +80,15 @@ def local_covers(degree: int, genus: int, profiles: Sequence[Sequence[int] | Non
 
 def _multisets(pieces: list[Piece], start: int, left: int, need: list, acc: list, out: list) -> None:
     """Non-decreasing choices of pieces with total degree ``left`` whose leg types
-    exhaust ``need``."""
+    exhaust ``need`` (``pieces`` sorted by non-decreasing degree)."""
     if left == 0:
         out.append(LocalCover(tuple(acc)))
         return
     for idx in range(start, len(pieces)):
         piece = pieces[idx]
-        if piece.degree > left or not _take(piece, need):
+        if piece.degree > left:
+            break  # pieces come in non-decreasing degree
+        if not _take(piece, need):
             continue
         acc.append(piece)
         _multisets(pieces, idx, left - piece.degree, need, acc, out)

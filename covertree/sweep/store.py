@@ -55,7 +55,7 @@ from fractions import Fraction
 
 from covertree import MODEL_VERSION, __version__
 from covertree.errors import CovertreeError, InputError
-from covertree.export.rational import rational_str
+from covertree.rational import rational_str
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.graphs.curve_graph import StableCurveGraph
 from covertree.sweep.tasks import StratumSummary, Task, divisor_names, problem_order
