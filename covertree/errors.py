@@ -30,6 +30,11 @@ class NotationError(GraphError):
     """A graph string cannot be parsed; the message names the position."""
 
 
+class TooLargeError(InputError):
+    """A run is estimated beyond the work limit before it starts (names the
+    size that makes it infeasible and the largest feasible value)."""
+
+
 class LimitError(CovertreeError):
     """A run would exceed a user-set limit (for instance ``--max-covers``)."""
 

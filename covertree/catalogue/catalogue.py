@@ -94,13 +94,15 @@ class Catalogue:
 
 
 def select_strata(problem: HurwitzProblem, max_codim: int = 1, stratum: StableCurveGraph | None = None,
-                  labeled: bool = False) -> list[BaseStratum]:
+                  labeled: bool = False, max_work: float | None = None) -> list[BaseStratum]:
     """The base strata of a run: all of codimension ``<= max_codim`` (grouped by
-    equal-profile relabelling unless ``labeled``), or the single ``stratum``."""
+    equal-profile relabelling unless ``labeled``), or the single ``stratum``;
+    ``max_work`` as in :func:`covertree.graphs.enumerate.stable_graphs`."""
     profiles = [tuple(p) for p in problem.profiles]
     fixed = {j for j, _ in problem.marks}
     if stratum is None:
-        return base_strata(problem.target_genus, profiles, max_codim, labeled=labeled, fixed=fixed)
+        return base_strata(problem.target_genus, profiles, max_codim, labeled=labeled, fixed=fixed,
+                           max_work=max_work)
     if not isinstance(stratum, StableCurveGraph) or stratum.genus != problem.target_genus:
         raise GraphError(
             f"stratum {stratum.notation!r} is not a stable graph of genus "
@@ -142,11 +144,13 @@ def stratum_result(problem: HurwitzProblem, base: BaseStratum, budget: list[int]
 
 def build_catalogue(problem: HurwitzProblem, max_codim: int = 1, stratum: StableCurveGraph | None = None,
                     labeled: bool = False, max_covers: int = DEFAULT_MAX_COVERS,
-                    strata: Iterable[BaseStratum] | None = None) -> Catalogue:
+                    strata: Iterable[BaseStratum] | None = None, budget: list[int] | None = None) -> Catalogue:
     """List every cover over every selected base stratum.
 
     ``strata`` may pass the result of :func:`select_strata` (for instance
-    wrapped to report progress); by default it is computed here.
+    wrapped to report progress); by default it is computed here.  ``budget``
+    (``[max_covers]`` by default) counts down the covers still allowed as
+    they are found, so a caller holding it can show a running count.
 
     Raises
     ------
@@ -154,7 +158,7 @@ def build_catalogue(problem: HurwitzProblem, max_codim: int = 1, stratum: Stable
         When more than ``max_covers`` covers would be listed.
     """
     hurwitz = problem_hurwitz(problem)
-    budget = [max_covers]
+    budget = [max_covers] if budget is None else budget
     if strata is None:
         strata = select_strata(problem, max_codim, stratum, labeled)
     results = tuple(stratum_result(problem, base, budget, hurwitz) for base in strata)

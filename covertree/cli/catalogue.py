@@ -11,6 +11,8 @@ from covertree.catalogue.catalogue import (
     DEFAULT_MAX_COVERS, Catalogue, StratumResult, build_catalogue, problem_hurwitz, select_strata, stratum_result,
 )
 from covertree.catalogue.grouping import CoverGroup, group_covers
+from covertree.catalogue.feasibility import check_cover_count
+from covertree.cli.limits import deadline, max_work_option, time_limit_option
 from covertree.cli.params import PROFILE, AtomicOutput, OneLineCommand, emit, format_option, output_option
 from covertree.catalogue.covers import divisor_name
 from covertree.catalogue.local_structure import local_structure
@@ -23,6 +25,7 @@ from covertree.export.rational import rational_str
 from covertree.export.words import count_noun, profiles_text
 from covertree.export.tallies import tallies_to_json
 from covertree.graphs.notation import parse_graph
+from covertree.hurwitz.cost import check_count
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.tallies.types import TallyCatalogue, tally_catalogue
 
@@ -63,30 +66,48 @@ def problem_options(func):
               help="grouped: covers whose rows agree in every printed column as one row with their count "
                    "and summed weight; all: one row per cover.  [default: grouped for table and latex, "
                    "all for json, jsonl, csv, tikz]")
+@max_work_option
+@time_limit_option
 @format_option(["table", "json", "jsonl", "csv", "latex", "tikz"])
 @output_option
 def command(genus, target_genus, degree, profiles, marks, codim, stratum, labeled, max_covers, standalone, engine,
-            rows, fmt, output):
+            rows, max_work, time_limit, fmt, output):
     """List every admissible cover over a fixed curve of each boundary stratum of
     the target: source and stable source, |Aut|, multiplicity, weight; check
-    that each stratum's weights add up to the Hurwitz number."""
+    that each stratum's weights add up to the Hurwitz number.
+
+    Refused before any search: a Hurwitz number or a list of strata estimated
+    beyond --max-work steps, and (list engine) a smooth stratum with more
+    covers than --max-covers (at least its Hurwitz number).  --time-limit
+    stops a search that runs long whether or not it finds covers."""
+    check_count(degree, target_genus, genus, profiles, max_work)
     problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles, marks=marks)
     graph = parse_graph(stratum) if stratum is not None else None
+    with deadline(time_limit):
+        _run(problem, graph, (codim, labeled, max_covers, max_work), (standalone, engine, rows, fmt, output))
+
+
+def _run(problem, graph, selection: tuple, rendering: tuple) -> None:
+    codim, labeled, max_covers, max_work = selection
+    standalone, engine, rows, fmt, output = rendering
     if engine == "types":
         if fmt not in ("table", "json"):
             raise InputError(f"--engine types gives summaries only: use --format table or json, not {fmt}")
-        tallies = tally_catalogue(problem, codim, graph, labeled)
+        tallies = tally_catalogue(problem, codim, graph, labeled, max_work=max_work)
         emit(tallies_to_json(tallies) if fmt == "json" else tallies_table(tallies), output)
         _report([(s.base.graph.notation, s.total_weight, s.hurwitz_number) for s in tallies.failures])
         return
     grouped = _grouped(rows, fmt)
-    strata = select_strata(problem, codim, graph, labeled)
+    check_cover_count(problem, graph, max_covers)
+    strata = select_strata(problem, codim, graph, labeled, max_work=max_work)
+    budget = [max_covers]
     watch = watched(strata, len(strata), "strata", lambda b: b.graph.notation,
-                    hint=TYPES_HINT if fmt in ("table", "json") else None)
+                    hint=TYPES_HINT if fmt in ("table", "json") else None,
+                    extra=lambda: f"{max_covers - budget[0]} covers")
     if fmt == "jsonl":
-        failures = _stream(problem, watch, max_covers, output)
+        failures = _stream(problem, watch, budget, output)
     else:
-        cat = build_catalogue(problem, codim, graph, labeled, max_covers, strata=watch)
+        cat = build_catalogue(problem, codim, graph, labeled, max_covers, strata=watch, budget=budget)
         emit(_render(cat, fmt, standalone, grouped), output)
         failures = [(s.base.graph.notation, s.total_weight, s.hurwitz_number) for s in cat.failures]
     _report(failures)
@@ -120,11 +141,12 @@ def _render(cat: Catalogue, fmt: str, standalone: bool, grouped: bool) -> str:
     return catalogue_table(cat, grouped)
 
 
-def _stream(problem, strata, max_covers, output) -> list:
+def _stream(problem, strata, budget, output) -> list:
     """JSON lines, one per cover, in the order of the other formats, written
-    stratum by stratum; returns the failed strata."""
+    stratum by stratum (``budget``: ``[covers still allowed]``); returns the
+    failed strata."""
     hurwitz = problem_hurwitz(problem)
-    budget, failures = [max_covers], []
+    failures = []
     with AtomicOutput(output) as out:
         for number, base in enumerate(strata, start=1):
             result = stratum_result(problem, base, budget, hurwitz)

@@ -6,8 +6,10 @@ import io
 
 import click
 
+from covertree.cli.limits import deadline, max_work_option, on_terminal, time_limit_option
 from covertree.cli.params import PROFILE, OneLineCommand, emit, format_option, output_option
 from covertree.export.counts import COUNT_COLUMNS, count_row, counts_csv, counts_json, counts_latex
+from covertree.hurwitz.cost import check_count
 from covertree.hurwitz.numbers import hurwitz_numbers
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.export.words import profiles_text
@@ -23,14 +25,21 @@ from covertree.export.words import profiles_text
 @click.option("--degree", "-d", "degree", type=int, required=True, help="Degree d of the cover.")
 @click.option("--profile", "-p", "profiles", type=PROFILE, multiple=True,
               help="Profile over the next branch point, e.g. 3,1 or 2,1^3 (repeatable, in order).")
+@max_work_option
+@time_limit_option
 @format_option(["table", "json", "csv", "latex"])
 @output_option
-def command(genus, target_genus, degree, profiles, fmt, output) -> None:
+def command(genus, target_genus, degree, profiles, max_work, time_limit, fmt, output) -> None:
     """Count degree-D covers of a genus-H curve with the given profiles over
     labelled branch points: connected and disconnected Hurwitz numbers, each
-    cover weighted by 1/|Aut|, preimages unlabelled."""
+    cover weighted by 1/|Aut|, preimages unlabelled.
+
+    A count estimated beyond --max-work steps is refused before it starts,
+    naming the largest feasible degree."""
+    check_count(degree, target_genus, genus, profiles, max_work)
     problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles)
-    connected, disconnected = hurwitz_numbers(problem)
+    with deadline(time_limit), on_terminal(f"counting: degree {degree}, {problem.points} branch points"):
+        connected, disconnected = hurwitz_numbers(problem)
     if fmt == "json":
         text = counts_json(problem, connected, disconnected)
     elif fmt == "csv":

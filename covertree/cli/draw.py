@@ -34,13 +34,14 @@ def command(notation, cover_file, line, pick, output, dpi):
     labelled by profile). A graph keeps the vertex order and the title of the
     notation as written. Needs the extra covertree[draw] (matplotlib)."""
     from covertree.export.draw import draw_graph, draw_pair
-    from covertree.export.picture import vertex_images
+    from covertree.export.picture import check_picture_size, vertex_images
 
     if (notation is None) == (cover_file is None):
         raise InputError("give either a graph NOTATION or --cover FILE (one of the two)")
     if notation is not None:
         parts = graph_parts(notation)
         genera, legs, edges = parts
+        check_picture_size(len(genera), len(edges))
         draw_graph(parse_graph(notation), output, title=" ".join(notation.split()), dpi=dpi,
                    parts=(genera, edges, legs))
         return
@@ -54,6 +55,7 @@ def command(notation, cover_file, line, pick, output, dpi):
     except (KeyError, TypeError, ValueError, AttributeError) as error:
         where = f"cover {pick[0]}:{pick[1]}" if pick is not None else f"line {line or 1}"
         raise InputError(f"{where} is not a cover of a JSON-lines catalogue (missing or malformed {error})") from None
+    check_picture_size(source.n_vertices + base.n_vertices, source.n_nodes + base.n_nodes, "the cover")
     indices = (record.get("local_structure") or {}).get("source_edge_indices")
     source_labels = [str(e) for e in indices] if indices else [""] * source.n_nodes
     base_labels = [",".join(map(str, p)) for p in profiles]

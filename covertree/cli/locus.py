@@ -10,12 +10,25 @@ import click
 from rich.table import Table
 
 from covertree.cli.catalogue import problem_options
+from covertree.cli.limits import deadline, max_work_option, time_limit_option
 from covertree.cli.params import OneLineCommand, emit, format_option, output_option
 from covertree.cli.render import table_text
 from covertree.errors import InputError
 from covertree.export.locus import class_text, integral_to_json, locus_to_json, locus_to_latex
 from covertree.export.rational import rational_str
 from covertree.hurwitz.problem import HurwitzProblem
+
+
+def _guarded(degree, target_genus, genus, profiles, marks, max_work) -> HurwitzProblem:
+    """The problem, once its Hurwitz count and its base divisors are within
+    the work limit (:mod:`covertree.limits`)."""
+    from covertree.graphs.enumerate import check_strata
+    from covertree.hurwitz.cost import check_count
+
+    check_count(degree, target_genus, genus, profiles, max_work)
+    problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles, marks=marks)
+    check_strata(target_genus, problem.points, 1, max_work)
+    return problem
 
 ENGINE = click.option("--engine", "-e", "engine", type=click.Choice(["types", "list"]), default="types",
                       show_default=True, help="How covers over each base stratum are found (same numbers).")
@@ -42,9 +55,11 @@ def parse_family(text: str) -> dict[str, Fraction]:
               help='Degrees of lambda and the delta_i (with --mark also psi_k and the delta_i_{...}) on a '
                    'one-parameter family, e.g. "delta_0=10,delta_1=0": print the locus\' intersection number with it.')
 @ENGINE
+@max_work_option
+@time_limit_option
 @format_option(["table", "json", "latex"])
 @output_option
-def locus_command(genus, target_genus, degree, profiles, marks, family, engine, fmt, output):
+def locus_command(genus, target_genus, degree, profiles, marks, family, engine, max_work, time_limit, fmt, output):
     """The class of the Hurwitz locus (the pushforward of the cover space to
     Mbar_G, when it is a divisor) in lambda, delta_0, ..., solved from the
     integrals of every monomial of degree 3G-4 in lambda and the delta_i
@@ -54,9 +69,10 @@ def locus_command(genus, target_genus, degree, profiles, marks, family, engine, 
     boundary divisors, and the symmetry fixes the marked branch points."""
     from covertree.locus.divisor import family_number, locus_class
 
-    problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles, marks=marks)
+    problem = _guarded(degree, target_genus, genus, profiles, marks, max_work)
     degrees = parse_family(family) if family is not None else None
-    result = locus_class(problem, engine)
+    with deadline(time_limit):
+        result = locus_class(problem, engine)
     numbers = None
     if degrees is not None:
         numbers = {"labelled": family_number(result, degrees), "unordered": family_number(result, degrees, True)}
@@ -93,19 +109,23 @@ def _locus_table(result, numbers) -> str:
                    'and the divisors delta_i_{a,b,...} of Mbar_{G,n}.')
 @click.option("--target", "target", default="", help='Target classes: psi_j (j a branch point), kappa.')
 @ENGINE
+@max_work_option
+@time_limit_option
 @format_option(["table", "json"])
 @output_option
-def integral_command(genus, target_genus, degree, profiles, marks, source, target, engine, fmt, output):
+def integral_command(genus, target_genus, degree, profiles, marks, source, target, engine, max_work, time_limit,
+                     fmt, output):
     """The integral over the space of admissible covers (labelled branch
     points, covers weighted 1/|Aut|) of src^*(source) br^*(target); the
     degrees must add up to the dimension 3H - 3 + b."""
     from covertree.locus.integrals import cover_space_integral
     from covertree.locus.monomial import Monomial
 
-    problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles, marks=marks)
+    problem = _guarded(degree, target_genus, genus, profiles, marks, max_work)
     src = _monomial(source, "source", "--source")
     tgt = _monomial(target, "target", "--target")
-    result = cover_space_integral(problem, src, tgt, engine)
+    with deadline(time_limit):
+        result = cover_space_integral(problem, src, tgt, engine)
     if fmt == "json":
         emit(integral_to_json(result), output)
     else:

@@ -11,10 +11,13 @@ from rich.table import Table
 from covertree.catalogue.catalogue import DEFAULT_MAX_COVERS
 from covertree.catalogue.pullback import Pullback, build_pullback, pullback_strata
 from covertree.cli.catalogue import TYPES_HINT, problem_options
+from covertree.cli.limits import deadline, max_work_option, time_limit_option
 from covertree.cli.params import OneLineCommand, emit, format_option, output_option
 from covertree.cli.render import table_text, watched
 from covertree.export.pullback import pullback_to_csv, pullback_to_json, pullback_to_latex
 from covertree.export.rational import rational_str
+from covertree.graphs.enumerate import check_strata
+from covertree.hurwitz.cost import check_count
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.tallies.pullback import pullback_from_types
 
@@ -28,9 +31,12 @@ from covertree.tallies.pullback import pullback_from_types
 @click.option("--standalone", is_flag=True, help="LaTeX: a complete document.")
 @click.option("--engine", "-e", "engine", type=click.Choice(["list", "types"]), default="list", show_default=True,
               help="list: from every cover; types: from combinatorial types (no covers listed, for large degree).")
+@max_work_option
+@time_limit_option
 @format_option(["table", "json", "csv", "latex"])
 @output_option
-def command(genus, target_genus, degree, profiles, marks, labeled, max_covers, standalone, engine, fmt, output):
+def command(genus, target_genus, degree, profiles, marks, labeled, max_covers, standalone, engine, max_work,
+            time_limit, fmt, output):
     """For every boundary divisor D of the target's moduli space and every
     boundary divisor delta of Mbar_G, the coefficient c(D, delta) of D in
     br_* src^* delta: the sum over the covers f over D of
@@ -39,13 +45,11 @@ def command(genus, target_genus, degree, profiles, marks, labeled, max_covers, s
     sum_f #branches * L / |Aut f| equals the Hurwitz number over every D.
     With --mark the source lands in Mbar_{G,n} and delta runs over its
     boundary divisors delta_0, delta_i_{a,b,...}."""
+    check_count(degree, target_genus, genus, profiles, max_work)
     problem = HurwitzProblem.build(degree, target_genus, genus=genus, profiles=profiles, marks=marks)
-    if engine == "types":
-        pb = pullback_from_types(problem, labeled)
-    else:
-        strata = pullback_strata(problem, labeled)
-        watch = watched(strata, len(strata), "divisors", lambda b: b.graph.notation, hint=TYPES_HINT)
-        pb = build_pullback(problem, labeled, max_covers, strata=watch)
+    check_strata(target_genus, problem.points, 1, max_work)
+    with deadline(time_limit):
+        pb = _compute(problem, labeled, max_covers, engine)
     emit(_render(pb, fmt, standalone), output)
     for r in pb.failures:
         click.echo(
@@ -60,6 +64,14 @@ def command(genus, target_genus, degree, profiles, marks, labeled, max_covers, s
 
 def _space(p: HurwitzProblem) -> str:
     return f"Mbar_{{{p.genus},{p.n_marks}}}" if p.marks else f"Mbar_{p.genus}"
+
+
+def _compute(problem, labeled: bool, max_covers: int, engine: str) -> Pullback:
+    if engine == "types":
+        return pullback_from_types(problem, labeled)
+    strata = pullback_strata(problem, labeled)
+    watch = watched(strata, len(strata), "divisors", lambda b: b.graph.notation, hint=TYPES_HINT)
+    return build_pullback(problem, labeled, max_covers, strata=watch)
 
 
 def _render(pb: Pullback, fmt: str, standalone: bool) -> str:

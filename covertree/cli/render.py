@@ -11,8 +11,9 @@ from collections.abc import Iterable, Iterator
 from contextlib import contextmanager
 
 from rich.console import Console
-from rich.progress import BarColumn, Progress, TextColumn, TimeElapsedColumn
+from rich.progress import BarColumn, Progress, ProgressColumn, TextColumn, TimeElapsedColumn
 from rich.table import Table
+from rich.text import Text
 
 
 #: Width used when stdout is not a terminal and ``COLUMNS`` is not set: wide
@@ -87,39 +88,71 @@ def _table(columns, rows, shown, options) -> Table:
     return table
 
 
+class LiveColumn(ProgressColumn):
+    """A column showing ``text()`` afresh at every refresh (several times a
+    second), for a running count that grows between two advances."""
+
+    def __init__(self, text) -> None:
+        super().__init__()
+        self.text = text
+
+    def render(self, task) -> Text:
+        return Text(self.text())
+
+
 @contextmanager
-def progress(total: int, label: str, enabled: bool | None = None) -> Iterator:
+def progress(total: int, label: str, enabled: bool | None = None, extra=None) -> Iterator:
     """A progress bar on stderr when stderr is a terminal; yields a callable
-    ``advance(description)``.  Never writes to stdout."""
+    ``advance(description)``; ``extra()`` (a running count, say) is shown
+    live beside it.  Never writes to stdout."""
     if enabled is None:
         enabled = sys.stderr.isatty()
     if not enabled:
         yield lambda description="": None
         return
     columns = (TextColumn("{task.description}"), BarColumn(), TextColumn("{task.completed}/{task.total}"),
-               TimeElapsedColumn())
+               *((LiveColumn(extra),) if extra else ()), TimeElapsedColumn())
     with Progress(*columns, console=Console(stderr=True), transient=True) as bar:
         task = bar.add_task(label, total=total)
         yield lambda description="": bar.update(task, advance=1, description=description or label)
 
 
-def each_with_progress(items: Iterable, total: int, label: str, name=str) -> Iterator:
+def each_with_progress(items: Iterable, total: int, label: str, name=str, extra=None) -> Iterator:
     """Iterate ``items`` advancing a stderr progress bar (terminal only)."""
-    with progress(total, label) as advance:
+    with progress(total, label, extra=extra) as advance:
         for item in items:
             yield item
             advance(f"{label}: {name(item)}")
 
 
 def watched(items: Iterable, total: int, label: str, name=str, hint: str | None = None,
-            after: float | None = None) -> Iterator:
+            after: float | None = None, extra=None) -> Iterator:
     """:func:`each_with_progress`, and once the work has taken longer than
     ``after`` seconds (default :data:`SLOW_HINT_SECONDS`), the ``hint`` printed
     once on stderr (whether or not it is a terminal; never on stdout)."""
     after = SLOW_HINT_SECONDS if after is None else after
     start, said = time.monotonic(), hint is None
-    for item in each_with_progress(items, total, label, name):
+    for item in each_with_progress(items, total, label, name, extra):
         yield item
         if not said and time.monotonic() - start > after:
             print(f"covertree: note: {hint}", file=sys.stderr)
             said = True
+
+
+@contextmanager
+def running(label: str, text=None, enabled: bool | None = None) -> Iterator[None]:
+    """On a terminal: a spinner on stderr with ``label``, ``text()`` (a
+    running count, read several times a second) and the elapsed time, for
+    work without a known number of steps.  Never writes to stdout."""
+    if enabled is None:
+        enabled = sys.stderr.isatty()
+    if not enabled:
+        yield
+        return
+    from rich.progress import SpinnerColumn
+
+    columns = (SpinnerColumn(), TextColumn("{task.description}"), *((LiveColumn(text),) if text else ()),
+               TimeElapsedColumn())
+    with Progress(*columns, console=Console(stderr=True), transient=True) as bar:
+        bar.add_task(label, total=None)
+        yield

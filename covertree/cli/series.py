@@ -8,6 +8,7 @@ from fractions import Fraction
 import click
 from rich.table import Table
 
+from covertree.cli.limits import deadline, max_work_option, time_limit_option
 from covertree.cli.params import OneLineCommand, emit, format_option, output_option
 from covertree.cli.render import progress, table_text
 from covertree.errors import InputError
@@ -53,10 +54,12 @@ def _fraction(text: str) -> Fraction:
               help="Coefficient of q^0 (no degree-0 problem exists).")
 @click.option("--q-derivative", "-k", "q_derivative", type=click.IntRange(min=0), default=0, show_default=True,
               help="Apply (q d/dq)^K: the d-th coefficient is d^K times the quantity.")
+@max_work_option
+@time_limit_option
 @format_option(["table", "json", "csv", "latex"])
 @output_option
 def command(genus, target_genus, shapes, max_degree, kind, stratum, source, coefficient, engine, weight, mixed,
-            constant, q_derivative, fmt, output):
+            constant, q_derivative, max_work, time_limit, fmt, output):
     """Compute a quantity for the problems of degrees 1..N with a fixed genus,
     target genus and profile shapes, and identify sum_d d^K Q_d q^d as a
     quasimodular form: exact linear algebra over the monomials E2^a E4^b E6^c
@@ -64,7 +67,8 @@ def command(genus, target_genus, shapes, max_degree, kind, stratum, source, coef
     Says plainly when no form of that weight fits."""
     family = Family(genus, target_genus, tuple(ProfileShape.parse(s) for s in shapes))
     quantity = Quantity(kind, stratum, source, coefficient, engine)
-    with progress(max_degree, "degrees") as advance:
+    _check_family(family, max_degree, max_work)
+    with deadline(time_limit), progress(max_degree, "degrees") as advance:
         def evaluate(problem):
             advance(f"degree {problem.degree}")
             return quantity.evaluate(problem)
@@ -95,3 +99,18 @@ def series_table(s: DegreeSeries) -> str:
     for row in series_rows(s):
         table.add_row(*map(str, row))
     return table_text(table) + series_summary(s) + "\n"
+
+
+def _check_family(family: Family, max_degree: int, max_work) -> None:
+    """Refuse a series whose last degree is beyond the work limit (the
+    largest degree costs the most: the estimate of its Hurwitz count)."""
+    from covertree.errors import TooLargeError
+    from covertree.hurwitz.cost import check_count
+    from covertree.limits import MAX_DEGREE
+
+    if max_degree > MAX_DEGREE:
+        raise TooLargeError(f"--max-degree {max_degree} is larger than the largest degree covertree handles "
+                            f"({MAX_DEGREE}; far smaller ones are refused as infeasible)")
+    given = [shape.at(max_degree) for shape in family.shapes]
+    if all(p is not None for p in given):
+        check_count(max_degree, family.target_genus, family.genus, [tuple(p) for p in given], max_work)

@@ -6,6 +6,7 @@ import io
 
 import click
 
+from covertree.cli.limits import deadline, max_work_option, on_terminal, time_limit_option
 from covertree.cli.params import OneLineCommand, emit, format_option, output_option
 from covertree.export.graphs import strata_csv, strata_json, strata_latex, strata_rows
 from covertree.graphs.enumerate import stable_graphs
@@ -28,9 +29,12 @@ from covertree.graphs.enumerate import stable_graphs
     help="Largest codimension listed  [default: 3h-3+n, all strata].",
 )
 @click.option("--standalone", is_flag=True, help="TikZ: a complete document.")
+@max_work_option
+@time_limit_option
 @format_option(["table", "json", "csv", "latex", "tikz"])
 @output_option
-def command(genus: int, points: int, codim: int | None, standalone: bool, fmt: str, output: str | None) -> None:
+def command(genus: int, points: int, codim: int | None, standalone: bool, max_work, time_limit, fmt: str,
+            output: str | None) -> None:
     """List the stable graphs of type (h, n): every boundary stratum of
     Mbar_{h,n} with codimension at most K, once up to isomorphism fixing the
     legs 1..n, with its automorphism count; ordered by codimension, then
@@ -38,8 +42,16 @@ def command(genus: int, points: int, codim: int | None, standalone: bool, fmt: s
 
     Graphs are written as vertices g<genus>{legs}, then after '|' the edges
     i-j between 0-based vertex indices (i-i a loop, i-j^m for m parallel edges).
+
+    A listing estimated beyond --max-work steps is refused before it starts
+    (and again before each codimension), naming the largest feasible
+    codimension, genus and number of points.
     """
-    graphs = stable_graphs(genus, points, codim)
+    done = [0, 0]
+    with deadline(time_limit), on_terminal(f"strata of Mbar_{{{genus},{points}}}",
+                                       lambda: f"codim {done[0]}, {done[1]} strata so far"):
+        graphs = stable_graphs(genus, points, codim, max_work=max_work,
+                               on_layer=lambda k, found: done.__setitem__(slice(None), [k, found]))
     if fmt == "json":
         text = strata_json(genus, points, graphs)
     elif fmt == "csv":

@@ -15,6 +15,7 @@ from rich.table import Table
 from rich.text import Text
 
 from covertree.cli.interrupts import interrupted_status
+from covertree.cli.limits import max_work_option
 from covertree.cli.params import INT_RANGE, PROFILE, OneLineCommand, emit, format_option, output_option, \
     refuse_output_onto_store
 from covertree.cli.render import fitted_table, table_text
@@ -22,6 +23,7 @@ from covertree.errors import InputError
 from covertree.export.rational import rational_str
 from covertree.export.words import profiles_text
 from covertree.export.sweep import count_text, landing_columns, landing_header, summary_line, sweep_from_json, sweep_to_csv, sweep_to_json, sweep_to_latex
+from covertree.sweep.feasibility import check_sweep
 from covertree.sweep.report import SweepReport, merge_reports, shard_report, store_report, sweep_report
 from covertree.sweep.runner import ProcessBackend, RunOutcome, SerialBackend, run_tasks
 from covertree.sweep.store import ResultStore
@@ -158,9 +160,10 @@ def interrupted_message(total: int, finished: int, from_store: int, store: str |
 @click.option("--store", "store", type=click.Path(dir_okay=False), default=None,
               help="SQLite results store: finished tasks are kept, a rerun computes only the rest.")
 @quiet_option
+@max_work_option
 @output_option
 def sweep(genus, target_genus, degree, profiles, codim, labeled, engine, fmt, jobs, shard, dask, dask_timeout,
-          store, quiet, output):
+          store, quiet, max_work, output):
     """Run every Hurwitz problem of the ranges over every base stratum of
     codimension <= K: one row per (problem, stratum) with the number of
     covers, total weight, Hurwitz number, identity verdict and the weight
@@ -170,6 +173,7 @@ def sweep(genus, target_genus, degree, profiles, codim, labeled, engine, fmt, jo
     _check_store(store, output)
     spec = _spec(genus, target_genus, degree, profiles, codim, labeled, engine)
     piece = parse_shard(shard) if shard is not None else None
+    check_sweep(spec, max_work)
     plan = plan_sweep(spec)
     _refuse_nothing_to_do(plan)
     tasks = shard_tasks(plan.tasks, *piece) if piece else plan.tasks

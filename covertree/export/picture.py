@@ -40,6 +40,7 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 from itertools import permutations, product
 
+from covertree.errors import TooLargeError
 from covertree.export.tikz import LEG, LOOP_REACH, Layout, spread_labels
 
 __all__ = ["LOOP_SPREAD", "VERTEX_RADIUS", "CoverLayout", "cover_layout", "extent", "loop_curve", "loop_point",
@@ -47,6 +48,9 @@ __all__ = ["LOOP_SPREAD", "VERTEX_RADIUS", "CoverLayout", "cover_layout", "exten
 
 #: Half the opening angle of a teardrop loop at its vertex (degrees).
 LOOP_SPREAD = 28
+#: most vertices plus edges a picture takes (larger ones are unreadable, and
+#: their images take gigabytes)
+MAX_PICTURE_ITEMS = 120
 #: Radius of a vertex disc (TikZ: ``minimum size=6mm``).
 VERTEX_RADIUS = 0.3
 #: Distance between neighbouring source components of one column.
@@ -352,3 +356,17 @@ class _ImageSearch:
                 return False
             totals[v] += degrees.pop()
         return all(t == self.degree for v, t in enumerate(totals) if halves[v])
+
+
+def check_picture_size(n_vertices: int, n_edges: int, what: str = "the graph") -> None:
+    """Refuse a picture of more than :data:`MAX_PICTURE_ITEMS` vertices and edges.
+
+    >>> check_picture_size(300, 299)
+    Traceback (most recent call last):
+    ...
+    covertree.errors.TooLargeError: the graph has 300 vertices and 299 edges: a picture takes at most 120 vertices and edges together (the largest feasible chain has 60 vertices)
+    """
+    if n_vertices + n_edges > MAX_PICTURE_ITEMS:
+        raise TooLargeError(f"{what} has {n_vertices} vertices and {n_edges} edges: a picture takes at most "
+                            f"{MAX_PICTURE_ITEMS} vertices and edges together (the largest feasible chain has "
+                            f"{(MAX_PICTURE_ITEMS + 1) // 2} vertices)")

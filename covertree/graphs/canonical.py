@@ -16,7 +16,17 @@ The canonical form is computed by individualisation-refinement:
    certificate is the canonical one;
 3. automorphisms found on the way (two leaves with equal certificates) prune
    the search by orbits, and the order of the vertex automorphism group is the
-   product of the orbit sizes along the first path (orbit-stabiliser).
+   product of the orbit sizes along the first path (orbit-stabiliser);
+4. twins (non-adjacent vertices with the same invariant and the same
+   neighbours with the same multiplicities, such as the leaves of a star) are
+   swapped by an automorphism fixing every other vertex: each such
+   transposition is a known automorphism from the start, so a twin of a
+   vertex already explored is pruned at once and the twins count in the
+   orbits.  The least leaf is still found (pruning only skips images of
+   explored subtrees), so certificates are those of the plain search.
+
+The search keeps its own stack (no recursion), so its depth, up to the
+number of vertices, is not bounded by Python's recursion limit.
 
 The half-edge automorphism group is an extension of the vertex group by the
 permutations of parallel edges and the flips and permutations of loops, so
@@ -180,8 +190,20 @@ def _certify(genera: tuple, edges: tuple, legs: tuple) -> tuple[tuple, list[int]
     if len(set(colours)) == n:
         order, aut_v = _inverse(colours), 1
     else:
-        order, aut_v = _Search(n, nbrs, edges).run(colours)
+        order, aut_v = _Search(n, nbrs, edges, _twins(start, nbrs, n)).run(colours)
     return _key(genera, edges, legs, order), order, aut_v
+
+
+def _twins(start: list, nbrs: list, n: int) -> list[int]:
+    """Twin class of each vertex (the least vertex of its class): vertices
+    with equal invariants and equal neighbours (with multiplicities) that are
+    not adjacent to each other; a vertex without twins is its own class."""
+    classes: dict[tuple, int] = {}
+    twin = list(range(n))
+    for v in range(n):
+        signature = (start[v], tuple(sorted(nbrs[v])))
+        twin[v] = classes.setdefault(signature, v)
+    return twin
 
 
 def _adjacency(n: int, edges: tuple) -> tuple[list, list[int], list[int]]:
@@ -253,8 +275,8 @@ def _key(genera: tuple, edges: tuple, legs: list, order: list[int]) -> tuple:
 class _Search:
     """Individualisation-refinement with orbit pruning (McKay 1981)."""
 
-    def __init__(self, n: int, nbrs: list, edges: tuple) -> None:
-        self.n, self.nbrs, self.edges = n, nbrs, edges
+    def __init__(self, n: int, nbrs: list, edges: tuple, twin: list[int]) -> None:
+        self.n, self.nbrs, self.edges, self.twin = n, nbrs, edges, twin
         self.first = None  # (code, colours) of the first leaf
         self.best = None  # (code, colours) of the least leaf so far
         self.first_path: list[int] = []
@@ -265,18 +287,41 @@ class _Search:
         return _inverse(self.best[1]), self._group_order()
 
     def _visit(self, colours: list[int], prefix: list[int]) -> int | None:
-        """Explore below ``prefix``; return a level to jump back to, or None."""
-        if len(set(colours)) == self.n:
-            return self._leaf(colours, prefix)
-        cell = _first_cell(colours)
-        explored: list[int] = []
-        for w in cell:
+        """Explore below ``prefix`` (depth first, on an explicit stack of
+        ``[colours, prefix, cell, next position, explored]`` frames); return
+        a level to jump back to, or None."""
+        frames = [[colours, prefix, _first_cell(colours), 0, []]]
+        jump = None
+        while frames:
+            frame = frames[-1]
+            if jump is not None and jump < len(frame[1]):
+                frames.pop()  # jump further back
+                continue
+            jump = None
+            w = self._next(frame)
+            if w is None:
+                frames.pop()
+                continue
+            child, below = self._individualise(frame[0], w), frame[1] + [w]
+            if len(set(child)) == self.n:
+                jump = self._leaf(child, below)
+            else:
+                frames.append([child, below, _first_cell(child), 0, []])
+        return jump
+
+    def _next(self, frame: list) -> int | None:
+        """The next vertex of the frame's cell to individualise, skipping
+        those in the orbit of one explored (twins first, cheaply)."""
+        _, prefix, cell, position, explored = frame
+        while position < len(cell):
+            w = cell[position]
+            position += 1
             if explored and self._same_orbit(w, explored, prefix):
                 continue
             explored.append(w)
-            jump = self._visit(self._individualise(colours, w), prefix + [w])
-            if jump is not None and jump < len(prefix):
-                return jump
+            frame[3] = position
+            return w
+        frame[3] = position
         return None
 
     def _individualise(self, colours: list[int], w: int) -> list[int]:
@@ -307,6 +352,11 @@ class _Search:
 
     def _orbits(self, fixed: list[int]) -> list[int]:
         sets = DisjointSets(self.n)
+        pinned = set(fixed)
+        free: dict[int, int] = {}  # twin class -> its first vertex off the fixed ones
+        for v in range(self.n):  # twins off the fixed vertices swap
+            if v not in pinned:
+                sets.union(v, free.setdefault(self.twin[v], v))
         for g in self.generators:
             if all(g[p] == p for p in fixed):
                 for v in range(self.n):
@@ -314,6 +364,8 @@ class _Search:
         return sets.roots()
 
     def _same_orbit(self, w: int, explored: list[int], prefix: list[int]) -> bool:
+        if any(self.twin[x] == self.twin[w] for x in explored):
+            return True
         if not self.generators:
             return False
         root = self._orbits(prefix)

@@ -32,6 +32,7 @@ from functools import lru_cache
 from covertree.errors import GraphError
 from covertree.graphs.canonical import _certify
 from covertree.graphs.curve_graph import StableCurveGraph, _relabelled
+from covertree.limits import STEPS_PER_STRATUM_VERTEX, check_work, largest_feasible, strata_work
 
 __all__ = ["stable_graphs", "max_codimension"]
 
@@ -60,7 +61,8 @@ def max_codimension(genus: int, n: int) -> int:
     return 3 * genus - 3 + n
 
 
-def stable_graphs(genus: int, n: int, max_codim: int | None = None) -> list[StableCurveGraph]:
+def stable_graphs(genus: int, n: int, max_codim: int | None = None,
+                  max_work: float | None = None, on_layer=None) -> list[StableCurveGraph]:
     """Every stable graph of type ``(genus, n)`` with at most ``max_codim`` edges.
 
     Parameters
@@ -69,6 +71,13 @@ def stable_graphs(genus: int, n: int, max_codim: int | None = None) -> list[Stab
         The type; ``2 genus - 2 + n > 0``.  Legs are labelled ``1..n``.
     max_codim : int, optional
         Largest codimension listed (default and cap: ``3 genus - 3 + n``).
+    max_work : float, optional
+        Work limit in steps (:mod:`covertree.limits`): the listing is refused
+        when estimated beyond it, before it starts, and again before each
+        codimension from the candidates the previous one gives.
+    on_layer : callable, optional
+        Called as ``on_layer(k, found)`` before codimension ``k`` is built
+        (``found`` strata so far), for progress reports.
 
     Returns
     -------
@@ -79,6 +88,9 @@ def stable_graphs(genus: int, n: int, max_codim: int | None = None) -> list[Stab
     ------
     GraphError
         For an unstable type or a negative ``max_codim``.
+    TooLargeError
+        When the listing is estimated beyond ``max_work`` (names the largest
+        feasible codimension, genus and number of legs).
 
     Examples
     --------
@@ -92,11 +104,66 @@ def stable_graphs(genus: int, n: int, max_codim: int | None = None) -> list[Stab
         max_codim = top
     if not isinstance(max_codim, int) or isinstance(max_codim, bool) or max_codim < 0:
         raise GraphError(f"the codimension must be an integer >= 0, got {max_codim!r}")
+    last = min(max_codim, top)
+    check_strata(genus, n, last, max_work)
     out: list[StableCurveGraph] = []
-    for k in range(min(max_codim, top) + 1):
+    spent = 0.0
+    for k in range(last + 1):
+        if on_layer is not None:
+            on_layer(k, len(out))
+        if k and max_work is not None:  # layers in order: each call recurses one level at most
+            spent += _layer_work(_layer(genus, n, k - 1))
+            _check_layer(genus, n, (k, last), (spent, len(out)), max_work)
         for key, genera, edges, legs, aut_v in _layer(genus, n, k):
             out.append(StableCurveGraph._from_canonical(genera, edges, legs, key, aut_v))
     return out
+
+
+def check_strata(genus: int, n: int, codim: int, max_work: float | None) -> None:
+    """Refuse listing the strata of ``Mbar_{genus,n}`` up to ``codim`` when
+    estimated (:func:`covertree.limits.strata_work`) beyond ``max_work``.
+
+    >>> check_strata(6, 4, 19, 10**8)  # doctest: +ELLIPSIS
+    Traceback (most recent call last):
+    ...
+    covertree.errors.TooLargeError: the strata of Mbar_{6,4} up to codim 19 would take about 10^12.1 steps, beyond the work limit 10^8 (--max-work); the largest feasible codim is ..., genus 3 with 4 points, 1 point at genus 6 at that codim
+    """
+    if max_work is None or strata_work(genus, n, codim) <= max_work:
+        return
+    parts = []
+    k = largest_feasible(lambda c: strata_work(genus, n, c), 0, codim, max_work)
+    parts.append(f"the largest feasible codim is {k}" if k is not None else "no codimension is feasible")
+    g = largest_feasible(lambda h: strata_work(h, n, codim), 0, genus, max_work)
+    if g is not None and 2 * g - 2 + n > 0:
+        parts.append(f"genus {g} with {n} points")
+    m = largest_feasible(lambda p: strata_work(genus, p, codim), 0, n, max_work)
+    if m is not None and 2 * genus - 2 + m > 0:
+        parts.append(f"{m} point{'s' if m != 1 else ''} at genus {genus}")
+    check_work(strata_work(genus, n, codim), max_work, f"the strata of Mbar_{{{genus},{n}}} up to codim {codim}",
+               ", ".join(parts) + (" at that codim" if len(parts) > 1 else ""))
+
+
+def _layer_work(layer: tuple[_Raw, ...]) -> float:
+    """Steps to build the next layer from ``layer``: its candidates (one-edge
+    degenerations, with repetitions), each certified."""
+    total = 0.0
+    for _, genera, edges, legs, _ in layer:
+        items = [len(x) for x in legs]
+        for a, b in edges:
+            items[a] += 1
+            items[b] += 1
+        candidates = sum((g >= 1) + (2 ** (i - 1) * (g + 1) if i else g // 2) for g, i in zip(genera, items))
+        total += candidates * STEPS_PER_STRATUM_VERTEX * (len(genera) + 1) / 3
+    return total
+
+
+def _check_layer(genus: int, n: int, codims: tuple[int, int], done: tuple[float, int], max_work: float) -> None:
+    """Before codimension ``k`` (of ``k..last``): refuse when the candidates
+    of the next layer (counted exactly from the layer before) push the work
+    ``spent`` so far past ``max_work``."""
+    (k, last), (spent, found) = codims, done
+    check_work(spent, max_work, f"the strata of Mbar_{{{genus},{n}}} up to codim {last} (up to codim {k}, "
+               f"after {found} strata)", f"the largest feasible codim is {k - 1}")
 
 
 @lru_cache(maxsize=64)

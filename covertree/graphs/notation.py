@@ -52,6 +52,12 @@ from __future__ import annotations
 
 from covertree.errors import GraphError, NotationError
 from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
+from covertree.limits import MAX_DIGITS
+
+#: most vertices, edges and legs (together) a notation may describe: far
+#: beyond any stratum or source covertree can handle (a cap on memory before
+#: anything is computed)
+MAX_GRAPH_ITEMS = 600
 
 __all__ = ["format_graph", "graph_parts", "parse_graph"]
 
@@ -140,13 +146,21 @@ class _Parser:
     """Recursive-descent parser with 0-based column positions."""
 
     def __init__(self, text: str) -> None:
-        self.text, self.pos = text, 0
+        self.text, self.pos, self.items = text, 0, 0
+
+    def _count(self, items: int) -> None:
+        # vertices, edges and legs read so far, at most MAX_GRAPH_ITEMS
+        self.items += items
+        if self.items > MAX_GRAPH_ITEMS:
+            raise NotationError(f"column {self.pos}: the graph has more than {MAX_GRAPH_ITEMS} "
+                                "vertices, edges and legs")
 
     def graph(self) -> tuple[list[int], list[list[int]], list[tuple[int, int]]]:
         genera: list[int] = []
         legs: list[list[int]] = []
         while True:
             g, x = self._vertex()
+            self._count(1 + len(x))
             genera.append(g)
             legs.append(x)
             if not self._accept(","):
@@ -183,6 +197,10 @@ class _Parser:
                 m = self._int("an edge multiplicity after '^'")
                 if m < 1:
                     raise NotationError(f"column {column}: edge multiplicity must be at least 1")
+                if self.items + m > MAX_GRAPH_ITEMS:
+                    raise NotationError(f"column {column}: edge multiplicity {m} makes the graph larger than "
+                                        f"{MAX_GRAPH_ITEMS} vertices, edges and legs")
+            self._count(m)
             edges.extend([(a, b)] * m)
             if not self._accept(","):
                 return edges
@@ -227,7 +245,10 @@ class _Parser:
             self.pos += 1
         if start == self.pos:
             self._fail(what)
-        return int(self.text[start : self.pos])
+        digits = self.text[start : self.pos]
+        if len(digits.lstrip("0")) > MAX_DIGITS:
+            raise NotationError(f"column {start}: a number of {len(digits)} digits; at most {MAX_DIGITS} allowed")
+        return int(digits)
 
     def _fail(self, what: str):
         found = self._peek()

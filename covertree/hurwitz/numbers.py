@@ -195,6 +195,10 @@ def _counts(degree: int, target_genus: int, key: Profiles) -> tuple[int, int]:
     # (T, N) by the sparse engine at high degree when it applies, else by the table
     if degree > SPARSE_DEGREE and is_sparse(key):
         return sparse_tuple_counts(degree, target_genus, key)
+    groups = sorted(Counter(key).items())
+    for m in range(1, degree):  # bottom up: the memoised recursion stays one level deep
+        for inside in sorted({inside for _, inside, _ in _splits(groups, m)}):
+            _transitive(target_genus, m, inside)
     return _transitive(target_genus, degree, key), _tuples(target_genus, degree, key)
 
 

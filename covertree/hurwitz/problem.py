@@ -26,7 +26,8 @@ from __future__ import annotations
 from collections.abc import Iterable, Sequence
 from dataclasses import dataclass
 
-from covertree.errors import ProblemError, ProfileError
+from covertree.errors import ProblemError, ProfileError, TooLargeError
+from covertree.limits import MAX_DEGREE
 from covertree.hurwitz.marks import MarkError, legs_from_specs
 from covertree.symmetric.partitions import Partition, simple
 
@@ -169,6 +170,9 @@ class HurwitzProblem:
                 f"and profiles {_show(given)}: their total ramification "
                 f"{branching(degree, given)} exceeds the {allowed} that Riemann-Hurwitz allows"
             )
+        if missing > MAX_POINTS:
+            raise TooLargeError(f"genus {genus} needs {missing} simple branch points at degree {degree}; "
+                                f"at most {MAX_POINTS} allowed")
         if missing and degree < 2:
             raise ProblemError(f"genus {genus} needs branching, impossible in degree 1")
         return cls(genus, target_genus, degree, tuple(given + [simple(degree)] * missing))
@@ -216,6 +220,13 @@ class HurwitzProblem:
         return out
 
 
+#: most simple branch points :meth:`HurwitzProblem.build` fills in
+MAX_POINTS = 100_000
+
+
 def _check_degree(degree: int) -> None:
     if not isinstance(degree, int) or degree < 1:
         raise ProblemError(f"degree {degree!r} is not allowed; the degree must be a positive integer")
+    if degree > MAX_DEGREE:
+        raise TooLargeError(f"degree {degree} is larger than the largest degree covertree handles "
+                            f"({MAX_DEGREE}; far smaller ones are refused as infeasible)")

@@ -112,6 +112,9 @@ def sparse_tuple_counts(
     """
     key = _counted(sparse_part(mu) for mu in profiles)
     engine = _Engine(target_genus, degree, key)
+    for m in range(1, degree):  # bottom up: the recursion below never goes deeper than one level
+        for inside in _keys_of_degree(key, degree, m):
+            engine.transitive(m, inside)
     return engine.transitive(degree, key), engine.tuples(degree, key)
 
 

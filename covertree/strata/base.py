@@ -69,6 +69,7 @@ def base_strata(
     max_codim: int,
     labeled: bool = False,
     fixed: Collection[int] = (),
+    max_work: float | None = None,
 ) -> list[BaseStratum]:
     """Strata of ``Mbar_{h,b}`` (``b = len(profiles)``) up to codimension ``max_codim``.
 
@@ -86,6 +87,8 @@ def base_strata(
     fixed : collection of int
         Legs never permuted (branch points carrying marked points of the
         source).
+    max_work : float, optional
+        Work limit of the listing (:func:`covertree.graphs.enumerate.stable_graphs`).
 
     Returns
     -------
@@ -105,7 +108,7 @@ def base_strata(
     [('g0{1,2,3,4}', 1), ('g0{1,2}, g0{3,4} | 0-1', 1), ('g0{1,3}, g0{2,4} | 0-1', 2)]
     """
     classes = _profile_classes(profiles, fixed)
-    graphs = stable_graphs(target_genus, len(classes), max_codim)
+    graphs = stable_graphs(target_genus, len(classes), max_codim, max_work=max_work)
     if labeled:
         return [BaseStratum(g, 1) for g in graphs]
     orbits: dict[tuple, list] = {}

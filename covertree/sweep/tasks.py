@@ -37,6 +37,7 @@ Examples
 
 from __future__ import annotations
 
+import re
 import sys
 from collections.abc import Iterable, Sequence
 from dataclasses import dataclass
@@ -50,6 +51,7 @@ from covertree.hurwitz.problem import HurwitzProblem
 from covertree.strata.base import BaseStratum
 from covertree.symmetric.partitions import Partition
 from covertree.tallies.types import tally_stratum
+from covertree.limits import MAX_DIGITS
 
 __all__ = [
     "SweepSpec", "Skipped", "Task", "Plan", "StratumSummary", "plan_sweep", "compute_task",
@@ -233,6 +235,13 @@ def plan_sweep(spec: SweepSpec) -> Plan:
     return Plan(spec, tuple(problems), skipped, tuple(tasks))
 
 
+_ASCII_DIGITS = re.compile(r"0*[0-9]{1,%d}" % MAX_DIGITS, re.ASCII)
+
+
+def _short(text: str, width: int = 30) -> str:
+    return repr(text) if len(text) <= width else f"{text[:width]!r}... ({len(text)} characters)"
+
+
 def parse_shard(text: str) -> tuple[int, int]:
     """Read ``I/N`` with ``1 <= I <= N``.
 
@@ -251,8 +260,9 @@ def parse_shard(text: str) -> tuple[int, int]:
     covertree.errors.InputError: shard '4/3' is out of range: write I/N with 1 <= I <= N, e.g. 1/4
     """
     head, sep, tail = str(text).strip().partition("/")
-    if not (sep and head.strip().isdigit() and tail.strip().isdigit()):
-        raise InputError(f"shard {text!r} is not of the form I/N (two positive integers, e.g. 1/4)")
+    if not (sep and _ASCII_DIGITS.fullmatch(head.strip()) and _ASCII_DIGITS.fullmatch(tail.strip())):
+        raise InputError(f"shard {_short(str(text))} is not of the form I/N (two positive integers of at most "
+                         f"{MAX_DIGITS} digits in ASCII, e.g. 1/4)")
     i, n = int(head), int(tail)
     if not 1 <= i <= n:
         raise InputError(f"shard {text!r} is out of range: write I/N with 1 <= I <= N, e.g. 1/4")

@@ -32,8 +32,9 @@ from functools import lru_cache
 from math import factorial, prod
 
 from covertree.errors import ProfileError
+from covertree.limits import MAX_DEGREE, MAX_DIGITS
 
-_TOKEN = re.compile(r"^\s*([0-9]+)\s*(?:\^\s*([0-9]+)\s*)?$")
+_TOKEN = re.compile(r"^\s*([0-9]+)\s*(?:\^\s*([0-9]+)\s*)?$", re.ASCII)
 
 
 class Partition(tuple):
@@ -78,14 +79,18 @@ class Partition(tuple):
             m = _TOKEN.match(token)
             if not m:
                 raise ProfileError(
-                    f"profile {text!r}: {token.strip()!r} is not a part; "
+                    f"profile {_quoted(text)}: {_quoted(token.strip())} is not a part; "
                     "write positive integers separated by commas, e.g. 3,1 or 2,1^3"
                 )
-            part, times = int(m.group(1)), int(m.group(2) or 1)
+            part, times = _bounded(m.group(1), text), _bounded(m.group(2) or "1", text)
             if part == 0:
-                raise ProfileError(f"profile {text!r}: parts must be positive")
+                raise ProfileError(f"profile {_quoted(text)}: parts must be positive")
             if times == 0:
-                raise ProfileError(f"profile {text!r}: {token.strip()!r} repeats a part 0 times; write k >= 1 in a^k")
+                raise ProfileError(f"profile {_quoted(text)}: {_quoted(token.strip())} repeats a part 0 times; "
+                                   "write a^k with k >= 1")
+            if len(parts) + times > MAX_DEGREE or part > MAX_DEGREE:
+                raise ProfileError(f"profile {_quoted(text)} is larger than the largest degree covertree "
+                                   f"handles ({MAX_DEGREE}; far smaller ones are refused as infeasible)")
             parts.extend([part] * times)
         return cls(parts)
 
@@ -111,6 +116,19 @@ class Partition(tuple):
 
     def __str__(self) -> str:
         return ",".join(map(str, self))
+
+
+def _quoted(text: str, width: int = 40) -> str:
+    # a short window of a user's text
+    return repr(text) if len(text) <= width else f"{text[:width]!r}... ({len(text)} characters)"
+
+
+def _bounded(digits: str, text: str) -> int:
+    # an integer of at most MAX_DIGITS significant digits
+    if len(digits.lstrip("0")) > MAX_DIGITS:
+        raise ProfileError(f"profile {_quoted(text)}: a number of {len(digits)} digits; "
+                           f"at most {MAX_DIGITS} allowed")
+    return int(digits)
 
 
 def simple(d: int) -> Partition:

@@ -592,9 +592,10 @@ def _aut(profile: Profile) -> int:
 
 
 def tally_catalogue(problem: HurwitzProblem, max_codim: int = 1, stratum: StableCurveGraph | None = None,
-                    labeled: bool = False) -> TallyCatalogue:
+                    labeled: bool = False, max_work: float | None = None) -> TallyCatalogue:
     """Tallies over every selected base stratum (as
-    :func:`covertree.catalogue.catalogue.build_catalogue` selects them)."""
-    strata = select_strata(problem, max_codim, stratum, labeled)
+    :func:`covertree.catalogue.catalogue.build_catalogue` selects them;
+    ``max_work`` limits the listing of the strata)."""
+    strata = select_strata(problem, max_codim, stratum, labeled, max_work=max_work)
     tallies = tuple(tally_stratum(problem, base) for base in strata)
     return TallyCatalogue(problem, max_codim, problem_hurwitz(problem), tallies)

@@ -115,7 +115,7 @@ def test_leftovers_of_a_killed_writer_are_removed_by_the_next_run(tmp_path):
 
 
 # A catalogue written as JSON lines as it is found, long enough to be interrupted.
-SLOW = ["catalogue", "-g", "2", "-t", "0", "-d", "4", "-k", "2", "-f", "jsonl"]
+SLOW = ["catalogue", "-g", "2", "-t", "0", "-d", "4", "-k", "2", "-f", "jsonl", "--max-covers", "10000000"]
 
 
 def temporaries(folder):
