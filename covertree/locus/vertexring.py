@@ -19,6 +19,12 @@ coefficients; products drop every monomial whose degree on some vertex exceeds
 integral of a monomial is the product over vertices of
 :func:`covertree.intersection.psi.psi_kappa_integral`.
 
+References
+----------
+E. Arbarello and M. Cornalba, "Combinatorial and algebro-geometric cohomology
+classes on the moduli spaces of curves", Journal of Algebraic Geometry 5 (1996):
+kappa_1 and psi restricted to boundary strata
+
 Examples
 --------
 The nodal rational curve with two legs, ``Mbar_{0,4}``: ``psi`` of a half-edge

@@ -118,3 +118,20 @@ def test_hand_worked_genus_2_double_covers_with_a_weierstrass_point_marked():
         "g0{2,3}, g0{1,4,5,6} | 0-1": {"delta_0": Fraction(1), "delta_1_{}": Fraction(0)},
         "g0{1,2,3}, g0{4,5,6} | 0-1": {"delta_0": Fraction(0), "delta_1_{}": Fraction(1, 4)},
     }
+
+
+def test_hand_worked_genus_2_double_covers_of_a_nodal_elliptic_curve():
+    # Degree 2 over g0{1,2} | 0-0 (the elliptic curve degenerated to a nodal
+    # rational curve carrying both branch points), worked by hand.  At the
+    # rational vertex s_1 s_2 a a^{-1} = 1 holds for either monodromy a of the
+    # loop.  a = 1: two sheets over each branch of the node, glued straight or
+    # crossed: two covers, each a rational curve with two loops of index 1
+    # (L = 1, orders 1 and 1), |Aut| = 2: c(delta_0) gets 2/2 from each.  a = (12):
+    # a genus-1 double cover with one loop of index 2 (L = 2, order 2/2 = 1),
+    # |Aut| = 2: c(delta_0) gets 1/2.  Three covers, c(delta_0) = 5/2, c(delta_1) =
+    # 0; check: sum #branches * L / |Aut| = 1/2 + 1/2 + 2/2 = 2 = H (OEIS A170991).
+    pb = build_pullback(HurwitzProblem.build(2, 1, genus=2))
+    [row] = [r for r in pb.rows if r.base.graph.notation == "g0{1,2} | 0-0"]
+    assert row.n_covers == 3
+    assert row.coefficients == {"delta_0": Fraction(5, 2), "delta_1": Fraction(0)}
+    assert row.branch_total == 2 == pb.hurwitz_number
