@@ -74,8 +74,9 @@ from fractions import Fraction
 from functools import lru_cache
 from math import factorial, prod
 
-from covertree.errors import IdentityError
+from covertree.errors import IdentityError, ProblemError
 from covertree.graphs.curve_graph import CurveGraph
+from covertree.hurwitz.problem import source_genus
 from covertree.gluing.structure import Glued, Port, canonical_code, piece_cycles
 from covertree.monodromy.local import LocalCover, local_covers, special_points
 from covertree.monodromy.pieces import Piece
@@ -134,8 +135,8 @@ class GluingStats:
 
 
 @lru_cache(maxsize=256)
-def _local_covers(degree: int, genus: int, profiles: tuple) -> tuple[LocalCover, ...]:
-    return tuple(local_covers(degree, genus, profiles))
+def _local_covers(degree: int, genus: int, profiles: tuple, max_genus: int) -> tuple[LocalCover, ...]:
+    return tuple(local_covers(degree, genus, profiles, max_genus))
 
 
 def glued_covers(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]],
@@ -170,8 +171,16 @@ def balanced_choices(base: CurveGraph, degree: int, profiles: Sequence[Sequence[
 
     Vertices are visited in :func:`_vertex_order`; at each, the profiles at
     the half-edges to vertices already chosen are prescribed like those of
-    legs, so only local covers that balance are ever built."""
+    legs, so only local covers that balance are ever built.  A connected
+    source of genus ``g`` has ``g = sum g_c + b_1 >= sum g_c`` over its
+    components, so choices whose pieces' genera add up to more than ``g``
+    (all of whose matchings are disconnected) are skipped."""
     specs = special_points(base)
+    try:
+        genus = source_genus(degree, base.genus, [tuple(p) for p in profiles])
+    except ProblemError:
+        return  # Riemann-Hurwitz has no connected source: no cover
+
     order = _vertex_order(base, specs)
     done = {v: n for n, v in enumerate(order)}
     links = _links(base, specs, done)
@@ -183,20 +192,21 @@ def balanced_choices(base: CurveGraph, degree: int, profiles: Sequence[Sequence[
         given = {p: chosen[a].profiles[pa] for p, a, pa in links[v]}
         prof = tuple(tuple(profiles[sp[1] - 1]) if sp[0] == "leg" else given.get(p)
                      for p, sp in enumerate(specs[v]))
-        return [c for c in _local_covers(degree, base.vertex_genera[v], prof)
+        return [c for c in _local_covers(degree, base.vertex_genera[v], prof, genus)
                 if all(c.profiles[x] == c.profiles[y] for x, y in loops[v])]
 
-    def rec(n: int) -> Iterator[list[LocalCover]]:
+    def rec(n: int, budget: int) -> Iterator[list[LocalCover]]:
         if n == len(order):
             yield list(chosen)
             return
         v = order[n]
         for cover in options(v):
-            chosen[v] = cover
-            yield from rec(n + 1)
+            if cover.genus <= budget:
+                chosen[v] = cover
+                yield from rec(n + 1, budget - cover.genus)
         chosen[v] = None
 
-    yield from rec(0)
+    yield from rec(0, genus)
 
 
 def _vertex_order(base: CurveGraph, specs: list) -> list[int]:
