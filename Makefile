@@ -32,6 +32,7 @@ test: $(STAMP)
 # Mutation testing, one layer at a time (each run takes minutes, niced):
 #   make mutate LAYER=stabilisation      (score against the work tree's tests)
 #   make mutate LAYER=graphs BASE=main   (score against the tests of main)
+#   make mutate LAYER=graphs AGAIN=1     (rerun the scratch copy: new code and tests, survivors again)
 # LAYER is one of symmetric, hurwitz, graphs, monodromy, gluing, stabilisation,
 # catalogue, tallies, intersection; scratch copies go to build/mutate/.
 MUTATE := $(VENV)/.installed-mutate
@@ -42,7 +43,7 @@ $(MUTATE): $(STAMP)
 
 mutate: $(MUTATE)
 	@test -n "$(LAYER)" || { echo "make mutate LAYER=name (see tools/mutate.py)" >&2; exit 2; }
-	nice -n 10 $(BIN)/python tools/mutate.py $(LAYER) $(if $(BASE),--tests-from $(BASE))
+	nice -n 10 $(BIN)/python tools/mutate.py $(LAYER) $(if $(BASE),--tests-from $(BASE)) $(if $(AGAIN),--again)
 
 bench: $(CORE)
 	$(BIN)/python benchmarks/run.py

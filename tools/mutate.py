@@ -6,6 +6,15 @@ with a configuration of their own, the mutation tool runs there (so the work tre
 is left alone), and the score is printed as ``LAYER: killed/total``, followed by
 the names of the surviving mutants.
 
+``python tools/mutate.py LAYER --again`` (``make mutate LAYER=... AGAIN=1``)
+refreshes the code and the tests of an existing scratch copy and keeps its
+verdicts: mutants of unchanged functions that were killed stay killed (tests
+are only ever added), mutants of changed functions are made and run afresh,
+and the survivors are run again against the new tests.  This is the quick
+loop while killing survivors; a fresh run gives the same score.  The scratch
+copy keeps its test selection (a new test file inside a selected folder is
+picked up; a changed selection in ``LAYERS`` needs a fresh run).
+
 References
 ----------
 R. A. DeMillo, R. J. Lipton and F. G. Sayward, "Hints on test data selection:
@@ -35,6 +44,7 @@ LAYERS: dict[str, tuple[list[str], list[str]]] = {
         ["covertree/catalogue/local_structure.py", "covertree/catalogue/pullback.py"],
         ["tests/catalogue/test_local_structure.py", "tests/catalogue/test_lcm_structure.py",
          "tests/catalogue/test_pullback.py", "tests/catalogue/test_published_pullback.py",
+         "tests/catalogue/test_pullback_marks.py",
          "tests/catalogue/test_hand_examples.py"],
     ),
     "tallies": (["covertree/tallies/*"], ["tests/tallies"]),
@@ -87,6 +97,21 @@ def _prepare(layer: str, revision: str | None) -> Path:
     return work
 
 
+def _refresh(layer: str) -> Path:
+    """The scratch copy of ``layer`` with the work tree's code and tests, its
+    verdicts kept (a fresh copy if there is none).  Its configuration is kept
+    too: the tool drops every verdict when the test selection changes, so a
+    layer whose selection in :data:`LAYERS` changed needs a fresh run."""
+    work = ROOT / "build" / "mutate" / layer
+    if not (work / "mutants").is_dir():
+        return _prepare(layer, None)
+    ignore = shutil.ignore_patterns("__pycache__", ".hypothesis")
+    for name in ("covertree", "tests"):
+        shutil.rmtree(work / name)
+        shutil.copytree(ROOT / name, work / name, ignore=ignore)
+    return work
+
+
 def _score(work: str | Path, tool: Path) -> tuple[int, int, list[str]]:
     """Killed and total mutants, and the survivors' names, from the tool's results."""
     out = subprocess.run(
@@ -101,16 +126,24 @@ def _score(work: str | Path, tool: Path) -> tuple[int, int, list[str]]:
 
 def main(argv: list[str]) -> int:
     """Run the tool on the layer named in ``argv`` and print its score;
-    ``--tests-from REV`` scores the layer's code against the tests of ``REV``."""
-    revision = None
+    ``--tests-from REV`` scores the layer's code against the tests of ``REV``,
+    ``--again`` reruns an existing scratch copy (module docstring)."""
+    revision, again = None, False
     if len(argv) == 3 and argv[1] == "--tests-from":
         argv, revision = argv[:1], argv[2]
+    if len(argv) == 2 and argv[1] == "--again":
+        argv, again = argv[:1], True
     if len(argv) != 1 or argv[0] not in LAYERS:
-        sys.stderr.write(f"usage: mutate.py LAYER [--tests-from REV], LAYER one of {', '.join(LAYERS)}\n")
+        sys.stderr.write(f"usage: mutate.py LAYER [--tests-from REV | --again], LAYER one of {', '.join(LAYERS)}\n")
         return 2
     tool = Path(sys.executable).parent / "mutmut"
-    work = _prepare(argv[0], revision)
-    subprocess.run(["nice", "-n", "10", str(tool), "run", "--max-children", "1"], cwd=work)
+    work = _refresh(argv[0]) if again else _prepare(argv[0], revision)
+    run = ["nice", "-n", "10", str(tool), "run", "--max-children", "1"]
+    subprocess.run(run, cwd=work)
+    if again:
+        survivors = _score(work, tool)[2]
+        if survivors:
+            subprocess.run(run + survivors, cwd=work)
     killed, total, survivors = _score(work, tool)
     label = argv[0] if revision is None else f"{argv[0]} (tests of {revision})"
     print(f"{label}: {killed}/{total} killed")

@@ -5,6 +5,11 @@ For every base stratum ``G`` the total weight ``sum_f mult(f)/|Aut f|`` of the
 covers over a fixed curve of type ``G`` must equal the connected Hurwitz number
 (docs/theory.md, section 7); :attr:`StratumResult.identity_holds` records the verdict.
 
+References
+----------
+J. Harris and D. Mumford, "On the Kodaira dimension of the moduli space of
+curves", Inventiones Mathematicae 67 (1982): admissible covers
+
 Examples
 --------
 Genus-2 double covers of an elliptic curve (two branch points), strata of

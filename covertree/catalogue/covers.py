@@ -1,5 +1,12 @@
 """Admissible covers as user-facing values: source, stable source, weight.
 
+References
+----------
+J. Harris and D. Mumford, "On the Kodaira dimension of the moduli space of
+curves", Inventiones Mathematicae 67 (1982): admissible covers
+P. Deligne and D. Mumford, "The irreducibility of the space of curves of
+given genus", Publications Mathematiques de l'IHES 36 (1969): stable curves
+
 Examples
 --------
 Genus-2 double covers of P^1 over the divisor where the six branch points

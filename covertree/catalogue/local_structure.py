@@ -30,7 +30,12 @@ dimension ``> 1`` and an order along a branch is a vector, not a number).
 
 Stable nodes are listed in the canonical edge order of ``cover.stable_source``
 (:func:`covertree.graphs.canonical.canonical_form` maps the stabilisation's
-edges to it), parallel stable nodes sorted by order.
+edges to it), parallel stable nodes sorted by order, then by chain.
+
+References
+----------
+J. Harris and D. Mumford, "On the Kodaira dimension of the moduli space of
+curves", Inventiones Mathematicae 67 (1982): admissible covers
 
 Examples
 --------
@@ -54,10 +59,12 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 from math import lcm, prod
+from typing import NamedTuple
 
 from covertree.catalogue.covers import Cover, legs_per_vertex
-from covertree.errors import IdentityError
+from covertree.errors import IdentityError, ProblemError
 from covertree.graphs.canonical import canonical_form
+from covertree.stabilisation.stabilise import smoothing_orders
 
 __all__ = ["BaseNode", "StableNode", "LocalStructure", "local_structure", "node_type", "branch_count"]
 
@@ -69,7 +76,7 @@ def branch_count(indices: tuple[int, ...] | list[int]) -> int:
     >>> branch_count((2, 2)), branch_count((3, 2)), branch_count(())
     (2, 1, 1)
     """
-    return prod(indices) // lcm(*indices) if indices else 1
+    return prod(indices) // lcm(*indices)  # both 1 for no index
 
 
 @dataclass(frozen=True)
@@ -144,11 +151,11 @@ class LocalStructure:
 
         Raises
         ------
-        ValueError
+        ProblemError
             On a base stratum of codimension other than one.
         """
         if self.stable_nodes is None:
-            raise ValueError("orders along a branch are defined on codimension-one base strata only")
+            raise ProblemError("orders along a branch are defined on codimension-one base strata only")
         return sum(n.order for n in self.stable_nodes if n.type == delta)
 
 
@@ -170,7 +177,7 @@ def node_type(genera, edges, k: int, legs=None) -> str | None:
     n = len(genera)
     total = sum(genera) + len(edges) - n + 1
     n_legs = sum(len(x) for x in legs) if legs is not None else 0
-    if (total < 2 and not n_legs) or 2 * total - 2 + n_legs <= 0:
+    if 2 * total - 2 + n_legs <= 0:  # no Mbar_{g,n}: g = 0 with n < 3, or g = 1 with n = 0
         return None
     a, b = edges[k]
     if a == b:
@@ -206,7 +213,7 @@ def local_structure(cover: Cover) -> LocalStructure:
     nodes = []
     for k, es in enumerate(per_edge):
         es = tuple(sorted(es, reverse=True))
-        nodes.append(BaseNode(k, es, lcm(*es) if es else 1, branch_count(es)))
+        nodes.append(BaseNode(k, es, lcm(*es), branch_count(es)))
     branches = prod(n.branches for n in nodes)
     stable = _stable_nodes(cover, nodes[0].lcm) if n_base == 1 else None
     return LocalStructure(tuple(nodes), branches, stable, _source_indices(cover))
@@ -230,20 +237,29 @@ def _source_indices(cover: Cover) -> tuple[int, ...]:
 def _stable_nodes(cover: Cover, big_l: int) -> tuple[StableNode, ...]:
     stab = cover.stabilised
     index = cover.raw.source_edge_index
-    orders = [sum(big_l // index[n] for n in chain) for chain in stab.chains]
+    over = cover.raw.source_edge_over
+    orders = [smoothing_orders(chain, over, index, (big_l,))[0] for chain in stab.chains]
     _key, vertex_order, edge_order = canonical_form(stab.genera, stab.edges, stab.legs)
     position = {v: i for i, v in enumerate(vertex_order)}
-    out = []
-    for k, raw_k in enumerate(edge_order):
+    rows = []
+    for raw_k in edge_order:
         a, b = stab.edges[raw_k]
-        ends = tuple(sorted((position[a], position[b])))
+        ends = (min(position[a], position[b]), max(position[a], position[b]))
         kind = node_type(stab.genera, stab.edges, raw_k, stab.legs)
-        out.append([ends, orders[raw_k], kind, stab.chains[raw_k]])
-    # parallel nodes are interchangeable positions: sort them by order
-    out.sort(key=lambda x: (x[0], x[1]))
-    expected = tuple(cover.stable_source.nodes)
-    if tuple(x[0] for x in out) != expected:  # pragma: no cover - a bug
-        raise IdentityError(
-            f"stable nodes {[x[0] for x in out]} do not match the stable source {cover.stable_source.notation}"
-        )
-    return tuple(StableNode(k, ends, order, kind, chain) for k, (ends, order, kind, chain) in enumerate(out))
+        rows.append(_StableRow(ends, orders[raw_k], kind, stab.chains[raw_k]))
+    # parallel nodes are interchangeable positions: sort them by order (then
+    # chain, so that the listing is determined)
+    rows.sort(key=lambda row: (row.ends, row.order, row.chain))
+    found = tuple(row.ends for row in rows)
+    if found != tuple(cover.stable_source.nodes):  # pragma: no cover - a bug
+        raise IdentityError(f"stable nodes {list(found)} do not match the stable source {cover.stable_source.notation}")
+    return tuple(StableNode(k, row.ends, row.order, row.type, row.chain) for k, row in enumerate(rows))
+
+
+class _StableRow(NamedTuple):
+    """A stable node before its position among parallel nodes is known."""
+
+    ends: tuple[int, int]
+    order: int
+    type: str | None
+    chain: tuple[int, ...]

@@ -36,6 +36,13 @@ Coefficients are per labelled divisor; with orbits (the default) one
 representative stands for ``orbit_size`` labelled divisors with the same
 coefficients.
 
+References
+----------
+J. Harris and D. Mumford, "On the Kodaira dimension of the moduli space of
+curves", Inventiones Mathematicae 67 (1982): admissible covers
+P. Deligne and D. Mumford, "The irreducibility of the space of curves of
+given genus", Publications Mathematiques de l'IHES 36 (1969): stable curves
+
 Examples
 --------
 Genus-2 double covers of ``P^1`` (``Mbar_{0,6}``): over the ``2|4`` divisor
@@ -83,7 +90,7 @@ def boundary_divisors(genus: int, n: int = 0) -> list[str]:
     if n:
         from covertree.intersection.boundary import divisor_name, divisors
 
-        names = [divisor_name(genus, n, key) for key in divisors(genus, n)] if 2 * genus - 2 + n > 0 else []
+        names = [divisor_name(genus, n, key) for key in divisors(genus, n)]  # none when 2G - 2 + n <= 0
         if not names:
             raise ProblemError(f"the marked source lands in Mbar_{{{genus},{n}}}, which has no boundary divisor "
                                "to pull back; mark more points or raise the genus")

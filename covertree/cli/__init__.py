@@ -7,6 +7,7 @@ exit status 2 for bad input, 3 for a limit reached, 1 for a failed self-check.
 
 from __future__ import annotations
 
+import re
 import sys
 
 import click
@@ -34,6 +35,37 @@ _COMMANDS = {
 }
 
 
+#: Quotations of the user's input longer than this (characters) are cut ...
+QUOTE_LIMIT = 240
+#: ... to a window of this many characters.
+QUOTE_WINDOW = 60
+#: Longest error line (characters).
+LINE_WIDTH = 600
+
+_QUOTED = re.compile(r"'(?:[^'\\\n]|\\.)*'|\"(?:[^\"\\\n]|\\.)*\"")
+
+
+def error_line(message: str) -> str:
+    """``message`` on one line, each quotation longer than :data:`QUOTE_LIMIT`
+    cut to a window of :data:`QUOTE_WINDOW` characters, the whole line to
+    :data:`LINE_WIDTH`.
+
+    >>> line = error_line("bad 'g" + "1" * 5000 + "' here")
+    >>> len(line), line.endswith("1'... (5001 characters) here")
+    (92, True)
+    >>> error_line("two\\nlines")
+    'two lines'
+    """
+    def cut(match: re.Match) -> str:
+        quoted = match.group(0)
+        if len(quoted) <= QUOTE_LIMIT:
+            return quoted
+        return f"{quoted[:QUOTE_WINDOW + 1]}{quoted[0]}... ({len(quoted) - 2} characters)"
+
+    line = _QUOTED.sub(cut, " ".join(message.split("\n")))
+    return line if len(line) <= LINE_WIDTH else line[:LINE_WIDTH] + f"... ({len(line)} characters)"
+
+
 class CovertreeGroup(click.Group):
     """A click group that turns library errors into one-line messages."""
 
@@ -41,7 +73,7 @@ class CovertreeGroup(click.Group):
         try:
             return super().invoke(ctx)
         except CovertreeError as error:
-            click.echo(f"covertree: error: {error}", err=True)
+            click.echo(f"covertree: error: {error_line(str(error))}", err=True)
             sys.exit(exit_status(error))
 
 

@@ -6,7 +6,7 @@ import json
 
 import click
 
-from covertree.cli.params import PICK, OneLineCommand
+from covertree.cli.params import PICK, OneLineCommand, check_destination
 from covertree.errors import GraphError, InputError
 from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 from covertree.graphs.notation import graph_parts, parse_graph

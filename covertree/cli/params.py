@@ -2,14 +2,17 @@
 
 from __future__ import annotations
 
-import os
 import re
 import sys
-import tempfile
+from collections.abc import Iterator
+from contextlib import contextmanager
+from typing import IO
 
 import click
 
+from covertree.cli.interrupts import interrupted_line, interrupted_status, signals_interrupt
 from covertree.errors import InputError, ProfileError
+from covertree.export.files import atomic_output, destination_problem, same_file
 from covertree.symmetric.partitions import Partition
 
 _RANGE = re.compile(r"^\s*(-?[0-9]+)\s*\.\.\s*(-?[0-9]+)\s*$", re.ASCII)
@@ -106,6 +109,17 @@ class OneLineCommand(click.Command):
         except click.UsageError as error:
             raise InputError(error.format_message()) from None
 
+    def invoke(self, ctx: click.Context):
+        """Run the command; SIGTERM and SIGHUP interrupt it like Ctrl-C (temporary
+        files are removed), and an interruption exits ``128 + signal`` (130 for
+        Ctrl-C) with one line saying what was kept."""
+        with signals_interrupt():
+            try:
+                return super().invoke(ctx)
+            except KeyboardInterrupt as stop:
+                click.echo(interrupted_line(stop, ctx.params), err=True)
+                sys.exit(interrupted_status(stop))
+
 
 class PickType(click.ParamType):
     """``S:K``: cover ``K`` of stratum ``S`` (both 1-based, as tables number them)."""
@@ -154,29 +168,13 @@ output_option = click.option(
 def check_destination(output: str | None, param=None, ctx=None) -> str | None:
     """Refuse an ``--output`` that can never be written, before any computing:
     an empty name, a missing folder, a file used as a folder, a folder
-    without write permission."""
+    without write permission, a dangling link."""
     if output is None:
         return None
-    if output == "":
-        raise click.BadParameter("empty file name; give a path", param=param, ctx=ctx)
-    target = os.path.realpath(output)
-    if os.path.exists(target) and not os.path.isfile(target):
-        if os.path.isdir(target):
-            raise click.BadParameter(f"{output!r} is a folder; give a file", param=param, ctx=ctx)
-        return output
-    directory = os.path.dirname(target)
-    if not os.path.isdir(directory):
-        raise click.BadParameter(f"folder {directory!r} does not exist", param=param, ctx=ctx)
-    if not os.access(directory, os.W_OK | os.X_OK):
-        raise click.BadParameter(f"folder {directory!r} is not writable", param=param, ctx=ctx)
+    problem = destination_problem(output)
+    if problem is not None:
+        raise click.BadParameter(problem, param=param, ctx=ctx)
     return output
-
-
-def _writes_through(output: str) -> bool:
-    """True when ``output`` (after links) exists and is not a regular file
-    (a device, a fifo): such a target is written into, never replaced."""
-    target = os.path.realpath(output)
-    return os.path.exists(target) and not os.path.isfile(target)
 
 
 def emit(text: str, output: str | None) -> None:
@@ -187,65 +185,22 @@ def emit(text: str, output: str | None) -> None:
     if output is None:
         click.echo(text, nl=False)
         return
-    if _writes_through(output):
-        with open(os.path.realpath(output), "w", encoding="utf-8") as handle:
-            handle.write(text)
+    with atomic_output(output) as handle:
+        handle.write(text)
+
+
+@contextmanager
+def AtomicOutput(output: str | None, binary: bool = False) -> Iterator[IO]:
+    """A stream: stdout, or :func:`covertree.export.files.atomic_output` for
+    ``output`` (no partial file is ever left behind)."""
+    if output is None:
+        yield sys.stdout.buffer if binary else sys.stdout
         return
-    directory = os.path.dirname(os.path.realpath(output))
-    fd, tmp = tempfile.mkstemp(dir=directory, prefix=".covertree-", suffix=".tmp")
-    try:
-        with os.fdopen(fd, "w", encoding="utf-8") as handle:
-            handle.write(text)
-        _publish(tmp, output)
-    except BaseException:
-        if os.path.exists(tmp):
-            os.unlink(tmp)
-        raise
+    with atomic_output(output, binary) as handle:
+        yield handle
 
 
-class AtomicOutput:
-    """Context manager giving a text stream: stdout, or a temporary file next to
-    ``output`` that replaces it only when the block succeeds (no partial file
-    is ever left behind)."""
-
-    def __init__(self, output: str | None) -> None:
-        self.output = output
-        self.tmp: str | None = None
-
-    def __enter__(self):
-        if self.output is None:
-            return sys.stdout
-        if _writes_through(self.output):
-            self.handle = open(os.path.realpath(self.output), "w", encoding="utf-8")
-            return self.handle
-        directory = os.path.dirname(os.path.realpath(self.output))
-        fd, self.tmp = tempfile.mkstemp(dir=directory, prefix=".covertree-", suffix=".tmp")
-        self.handle = os.fdopen(fd, "w", encoding="utf-8")
-        return self.handle
-
-    def __exit__(self, kind, value, traceback) -> bool:
-        if self.tmp is None:
-            if self.output is not None:
-                self.handle.close()
-            return False
-        self.handle.close()
-        if kind is None:
-            _publish(self.tmp, self.output)
-        else:
-            os.unlink(self.tmp)
-        return False
-
-
-def _publish(tmp: str, output: str) -> None:
-    """Give the finished temporary file the mode of the file it replaces (or
-    the usual permissions for a new one) and move it into place in one step;
-    a symlink is followed, so its target is replaced, not the link."""
-    target = os.path.realpath(output)
-    if os.path.isfile(target):
-        mode = os.stat(target).st_mode & 0o7777
-    else:
-        mask = os.umask(0)
-        os.umask(mask)
-        mode = 0o666 & ~mask
-    os.chmod(tmp, mode)
-    os.replace(tmp, target)
+def refuse_output_onto_store(output: str | None, store: str | None) -> None:
+    """Refuse ``-o`` naming the ``--store`` file (it would be overwritten)."""
+    if output is not None and store is not None and same_file(output, store):
+        raise InputError(f"--output {quote_window(output)} is the --store file; give another output file")

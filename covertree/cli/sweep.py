@@ -14,7 +14,9 @@ from rich.progress import BarColumn, MofNCompleteColumn, Progress, ProgressColum
 from rich.table import Table
 from rich.text import Text
 
-from covertree.cli.params import INT_RANGE, PROFILE, OneLineCommand, emit, format_option, output_option
+from covertree.cli.interrupts import interrupted_status
+from covertree.cli.params import INT_RANGE, PROFILE, OneLineCommand, emit, format_option, output_option, \
+    refuse_output_onto_store
 from covertree.cli.render import fitted_table, table_text
 from covertree.errors import InputError
 from covertree.export.rational import rational_str
@@ -44,13 +46,31 @@ def _spec(genus, target_genus, degree, profiles, codim, labeled, engine="list") 
                      tuple(profiles), codim, labeled, engine)
 
 
-def _backend(jobs: int, dask: str | None):
+def _check_store(store: str | None, output: str | None) -> None:
+    """Refuse an empty ``--store`` name and an ``-o`` naming the store."""
+    if store == "":
+        raise InputError("--store: empty file name; give the path of an SQLite file")
+    refuse_output_onto_store(output, store)
+
+
+def _refuse_nothing_to_do(plan: Plan) -> None:
+    """Refuse a sweep in which every problem is skipped (nothing computable)."""
+    if plan.problems or not plan.skipped:
+        return
+    first, rest = plan.skipped[0], len(plan.skipped) - 1
+    genus = "the genus of the profiles" if first.genus is None else f"genus {first.genus}"
+    more = f"; and {rest} more skipped problem{'s' if rest > 1 else ''}" if rest else ""
+    raise InputError(f"nothing to compute: every problem of the ranges is skipped ({genus} over genus "
+                     f"{first.target_genus} in degree {first.degree}: {first.reason}{more}); widen the ranges")
+
+
+def _backend(jobs: int, dask: str | None, timeout: float | None = None):
     if dask is not None and jobs != 1:
         raise InputError("--jobs and --dask exclude each other (the cluster has its own workers)")
     if dask is not None:
         from covertree.sweep.cluster import DaskBackend
 
-        return DaskBackend(dask)
+        return DaskBackend(dask, timeout)
     return ProcessBackend(jobs) if jobs > 1 else SerialBackend()
 
 
@@ -88,9 +108,9 @@ def _run(plan: Plan, tasks, backend, store: str | None, show: bool) -> RunOutcom
                     done[1] += was_stored
                     advance(task, was_stored)
                 return run_tasks(tasks, backend, opened, counted)
-        except KeyboardInterrupt:
+        except KeyboardInterrupt as stop:  # Ctrl-C, or SIGTERM/SIGHUP (see OneLineCommand)
             click.echo(interrupted_message(len(tasks), done[0], done[1], store), err=True)
-            sys.exit(130)
+            sys.exit(interrupted_status(stop))
         finally:
             if opened is not None:
                 opened.close()
@@ -132,23 +152,28 @@ def interrupted_message(total: int, finished: int, from_store: int, store: str |
 @click.option("--shard", "shard", default=None, help="Run only slice I of N (tasks with index % N == I-1).")
 @click.option("--dask", "dask", default=None, metavar="ADDRESS",
               help="Submit the tasks to this dask.distributed scheduler (extra covertree[dask]).")
+@click.option("--dask-timeout", "dask_timeout", type=click.FloatRange(min=0.1, max=600), default=None,
+              metavar="SECONDS",
+              help="With --dask: give up when the scheduler has not answered within this time (default 5).")
 @click.option("--store", "store", type=click.Path(dir_okay=False), default=None,
               help="SQLite results store: finished tasks are kept, a rerun computes only the rest.")
 @quiet_option
 @output_option
-def sweep(genus, target_genus, degree, profiles, codim, labeled, engine, fmt, jobs, shard, dask, store, quiet,
-          output):
+def sweep(genus, target_genus, degree, profiles, codim, labeled, engine, fmt, jobs, shard, dask, dask_timeout,
+          store, quiet, output):
     """Run every Hurwitz problem of the ranges over every base stratum of
     codimension <= K: one row per (problem, stratum) with the number of
     covers, total weight, Hurwitz number, identity verdict and the weight
     whose stable source lands in each boundary divisor delta_i of the source
     space (columns "lands in delta_i": not the pullback coefficient
     c(D, delta_i) of the pullback command)."""
+    _check_store(store, output)
     spec = _spec(genus, target_genus, degree, profiles, codim, labeled, engine)
     piece = parse_shard(shard) if shard is not None else None
     plan = plan_sweep(spec)
+    _refuse_nothing_to_do(plan)
     tasks = shard_tasks(plan.tasks, *piece) if piece else plan.tasks
-    outcome = _run(plan, tasks, _backend(jobs, dask), store, not quiet)
+    outcome = _run(plan, tasks, _backend(jobs, dask, dask_timeout), store, not quiet)
     report = shard_report(plan, tasks, outcome.results, piece) if piece else sweep_report(plan, outcome.results)
     emit(render(report, fmt), output)
     if not quiet:
@@ -169,7 +194,7 @@ def merge(files, fmt, quiet, output):
     output a single run gives."""
     reports = []
     for name in files:
-        with open(name, encoding="utf-8") as handle:
+        with open(name, "rb") as handle:
             reports.append((name, sweep_from_json(handle.read(), name)))
     report = merge_reports(reports)
     emit(render(report, fmt), output)
@@ -186,6 +211,7 @@ def merge(files, fmt, quiet, output):
 @output_option
 def export(store, fmt, quiet, output):
     """Print every result in a store (nothing is recomputed)."""
+    _check_store(store, output)
     with ResultStore(store, create=False) as opened:
         report = store_report(opened.results())
     emit(render(report, fmt), output)

@@ -18,6 +18,7 @@ import math
 from collections.abc import Sequence
 
 from covertree.errors import InputError
+from covertree.export.files import atomic_output
 from covertree.export.picture import VERTEX_RADIUS, cover_layout, extent, loop_curve
 from covertree.export.tikz import LEG, layout
 
@@ -110,8 +111,11 @@ def _finish(fig, ax, box, title: str | None, path: str, dpi: int, plt) -> None:
     fig.set_size_inches((x1 - x0) * INCH_PER_UNIT, (y1 - y0) * INCH_PER_UNIT)
     if title:
         ax.set_title(_wrapped(title, (x1 - x0) * INCH_PER_UNIT), fontsize=9, family="monospace")
-    fig.savefig(path, format=_suffix(path), dpi=dpi, bbox_inches="tight")
-    plt.close(fig)
+    try:
+        with atomic_output(path, binary=True) as handle:
+            fig.savefig(handle, format=_suffix(path), dpi=dpi, bbox_inches="tight")
+    finally:
+        plt.close(fig)
 
 
 def _wrapped(title: str, width_inches: float) -> str:

@@ -1,44 +1,14 @@
-r"""Exact rationals as text: ``p/q`` (``n`` when integral) and LaTeX ``\frac``.
+"""Exact rationals as text for the exporters: :mod:`covertree.rational`,
+re-exported (the functions live at the bottom of the package so that the
+layers before the exporters can print rationals without importing them).
 
-Every exporter of covertree prints weights and Hurwitz numbers through these
-two functions, so that JSON, CSV and LaTeX agree.
-
-Examples
---------
 >>> from fractions import Fraction
->>> rational_str(Fraction(15, 2)), rational_str(Fraction(4, 2)), rational_str(Fraction(-1, 3))
-('15/2', '2', '-1/3')
->>> print(latex_rational(Fraction(-1, 3)), latex_rational(Fraction(6, 3)))
--\frac{1}{3} 2
+>>> rational_str(Fraction(15, 2))
+'15/2'
 """
 
 from __future__ import annotations
 
-from fractions import Fraction
+from covertree.rational import latex_rational, rational_str
 
 __all__ = ["rational_str", "latex_rational"]
-
-
-def rational_str(value: Fraction | int) -> str:
-    """``"p/q"`` in lowest terms, or ``"n"`` when the value is an integer.
-
-    >>> rational_str(Fraction(0))
-    '0'
-    """
-    value = Fraction(value)
-    if value.denominator == 1:
-        return str(value.numerator)
-    return f"{value.numerator}/{value.denominator}"
-
-
-def latex_rational(value: Fraction | int) -> str:
-    r"""``\frac{p}{q}`` (the sign in front: ``-\frac{p}{q}``), or ``n`` when integral.
-
-    >>> print(latex_rational(Fraction(5, 2)))
-    \frac{5}{2}
-    """
-    value = Fraction(value)
-    if value.denominator == 1:
-        return str(value.numerator)
-    sign = "-" if value < 0 else ""
-    return rf"{sign}\frac{{{abs(value.numerator)}}}{{{value.denominator}}}"

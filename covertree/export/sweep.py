@@ -51,7 +51,6 @@ from __future__ import annotations
 
 import csv
 import io
-import json
 from fractions import Fraction
 
 from covertree import MODEL_VERSION
@@ -65,6 +64,7 @@ from covertree.sweep.report import Shard, SweepReport
 from covertree.sweep.tasks import Skipped, StratumSummary, SweepSpec, divisor_names
 from covertree.symmetric.partitions import Partition
 from covertree.export.jsontext import json_text
+from covertree.export.schema import RATIONAL, MapOf, Nullable, check_shape, load_json, short
 from covertree.export.words import count_noun, profiles_csv, profiles_latex
 
 __all__ = ["sweep_to_dict", "sweep_to_json", "sweep_to_csv", "sweep_to_latex", "sweep_from_json",
@@ -181,30 +181,63 @@ def sweep_to_latex(report: SweepReport) -> str:
     return "\n".join([table, "", summary_line(report) + "."])
 
 
-def sweep_from_json(text: str, name: str = "input") -> SweepReport:
-    """Read a document of :func:`sweep_to_json` back (for merging shards).
+_PROBLEM = {"genus": int, "target_genus": int, "degree": int, "profiles": [[int]]}
+_ROW = {**_PROBLEM, "base": str, "codim": int, "orbit_size": int, "n_covers": Nullable(int),
+        "total_weight": RATIONAL, "hurwitz_number": RATIONAL, "landing": MapOf(RATIONAL)}
+_SKIPPED = {"genus": Nullable(int), "target_genus": int, "degree": int, "reason": str}
+#: The shape :func:`sweep_from_json` checks before reading (see the module docstring).
+SHAPE = {"model_version": int, "problems": [_PROBLEM], "skipped": [_SKIPPED], "strata": [_ROW]}
+_SHARD = {"shard": {"index": int, "count": int, "tasks": int}, "task_indices": [int]}
+_SPEC = {"genus": Nullable([int]), "target_genus": [int], "degree": [int], "profiles": [[int]],
+         "codim": int, "labeled": bool}
+
+
+def sweep_from_json(text: str | bytes, name: str = "input") -> SweepReport:
+    """Read a document of :func:`sweep_to_json` back (for merging shards),
+    checked against its shape (:data:`SHAPE`) before anything is built.
 
     Raises
     ------
     InputError
-        If ``text`` is not such a document or has another model version.
+        If ``text`` is not UTF-8 JSON of that shape, or has another model
+        version (one line naming the place and a short quote).
     """
-    try:
-        doc = json.loads(text)
-    except json.JSONDecodeError as error:
-        raise InputError(f"{name} is not JSON ({error})") from None
+    doc = load_json(text.encode("utf-8") if isinstance(text, str) else text, name)
     if not isinstance(doc, dict) or "strata" not in doc:
         raise InputError(f"{name} is not a covertree sweep JSON document")
     if doc.get("model_version") != MODEL_VERSION:
-        raise InputError(f"{name} was written with model version {doc.get('model_version')}; "
+        raise InputError(f"{name} was written with model version {short(doc.get('model_version'))}; "
                          f"this covertree uses model version {MODEL_VERSION}")
+    _check_document(doc, name)
     try:
         return _report(doc)
-    except (KeyError, TypeError, ValueError, AttributeError) as error:
+    except (KeyError, TypeError, ValueError, AttributeError, ZeroDivisionError) as error:
         if isinstance(error, InputError):
             raise InputError(f"{name}: {error}") from None
         raise InputError(f"{name} is not a covertree sweep JSON document "
-                         f"(missing or malformed {error})") from None
+                         f"(missing or malformed {short(str(error))})") from None
+
+
+def _check_document(doc: dict, name: str) -> None:
+    check_shape(SHAPE, doc, name)
+    if "sweep" in doc:
+        check_shape(_SPEC, doc["sweep"], name, "sweep")
+    if "shard" in doc:
+        check_shape(_SHARD, doc, name)
+        _check_shard(doc["shard"], doc["task_indices"], len(doc["strata"]), name)
+
+
+def _check_shard(shard: dict, indices: list[int], rows: int, name: str) -> None:
+    """A shard ``index/count`` of ``tasks`` tasks with one index per row,
+    increasing, in range and in its slice (``index % count == I - 1``)."""
+    count, tasks = shard["count"], shard["tasks"]
+    if not (1 <= shard["index"] <= count <= max(tasks, 1)):
+        raise InputError(f"{name}: shard {short(shard['index'])}/{short(count)} of {short(tasks)} tasks "
+                         "is impossible (1 <= I <= N <= tasks)")
+    fits = all(0 <= i < tasks and i % count == shard["index"] - 1 for i in indices)
+    if len(indices) != rows or not fits or indices != sorted(set(indices)):
+        raise InputError(f"{name}: task_indices do not match shard {shard['index']}/{count} "
+                         f"of {tasks} tasks and its {rows} rows")
 
 
 def _problem(d: dict) -> HurwitzProblem:
@@ -213,9 +246,26 @@ def _problem(d: dict) -> HurwitzProblem:
 
 
 def _row(d: dict) -> StratumSummary:
+    problem = _problem(d)
+    names = [*divisor_names(problem.genus), "other"]
+    if not set(d["landing"]) <= set(names):
+        raise InputError(f"row over {short(d['base'])}: landing keys {short(sorted(d['landing']))} "
+                         f"are not among {', '.join(names)}")
+    _base_graph(d["base"])
     landing = tuple((k, Fraction(v)) for k, v in d["landing"].items())
-    return StratumSummary(_problem(d), d["base"], d["codim"], d["orbit_size"], d["n_covers"],
-                          Fraction(d["hurwitz_number"]), landing)
+    row = StratumSummary(problem, d["base"], d["codim"], d["orbit_size"], d["n_covers"],
+                         Fraction(d["hurwitz_number"]), landing)
+    if Fraction(d["total_weight"]) != row.total_weight:
+        raise InputError(f"row over {short(d['base'])}: total_weight {short(d['total_weight'])} "
+                         "is not the sum of the landing weights")
+    return row
+
+
+def _base_graph(notation: str) -> StableCurveGraph:
+    try:
+        return StableCurveGraph.parse(notation)
+    except (ValueError, RecursionError) as error:
+        raise InputError(f"row over {short(notation)}: {short(str(error))[1:-1]}") from None
 
 
 def _report(doc: dict) -> SweepReport:

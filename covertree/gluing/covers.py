@@ -91,6 +91,7 @@ from covertree.hurwitz.problem import source_genus
 from covertree.gluing.structure import Glued, Port, canonical_code, piece_cycles
 from covertree.monodromy.local import LocalCover, local_covers, special_points
 from covertree.monodromy.pieces import Piece
+from covertree.unionfind import DisjointSets
 
 
 @dataclass(frozen=True)
@@ -440,19 +441,10 @@ class _Matcher:
     def connected(self) -> bool:
         if self.one_each:
             return True  # one piece per vertex of a connected base
-        parent = list(range(len(self.pieces)))
-
-        def find(i: int) -> int:
-            while parent[i] != i:
-                parent[i] = parent[parent[i]]
-                i = parent[i]
-            return i
-
+        sets = DisjointSets(len(self.pieces))
         joins, needed = 0, len(self.pieces) - 1
         for a, b in self.glued.partner.items():
-            ra, rb = find(a[0]), find(b[0])
-            if ra != rb:
-                parent[ra] = rb
+            if sets.union(a[0], b[0]):
                 joins += 1
                 if joins == needed:
                     return True

@@ -26,6 +26,11 @@ and the labellings attaining it form one orbit of ``Aut(f)``, acted on freely,
 so their number is ``|Aut(f)|``.  The number of labellings tried is at most
 ``d`` times the product of the entry cycle lengths, itself at most the
 multiplicity of the cover.
+
+References
+----------
+J. Harris and D. Mumford, "On the Kodaira dimension of the moduli space of
+curves", Inventiones Mathematicae 67 (1982): admissible covers
 """
 
 from __future__ import annotations

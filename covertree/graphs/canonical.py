@@ -44,6 +44,7 @@ from collections.abc import Sequence
 from math import factorial
 
 from covertree.errors import GraphError
+from covertree.unionfind import DisjointSets
 
 __all__ = ["canonical_form", "count_automorphisms", "vertex_automorphism_count"]
 
@@ -305,12 +306,12 @@ class _Search:
         self.generators.append(tuple(at[old[v]] for v in range(self.n)))
 
     def _orbits(self, fixed: list[int]) -> list[int]:
-        parent = list(range(self.n))
+        sets = DisjointSets(self.n)
         for g in self.generators:
             if all(g[p] == p for p in fixed):
                 for v in range(self.n):
-                    _union(parent, v, g[v])
-        return [_find(parent, v) for v in range(self.n)]
+                    sets.union(v, g[v])
+        return sets.roots()
 
     def _same_orbit(self, w: int, explored: list[int], prefix: list[int]) -> bool:
         if not self.generators:
@@ -339,16 +340,3 @@ def _common_prefix(a: list[int], b: list[int]) -> int:
     while k < len(a) and k < len(b) and a[k] == b[k]:
         k += 1
     return k
-
-
-def _find(parent: list[int], v: int) -> int:
-    while parent[v] != v:
-        parent[v] = parent[parent[v]]
-        v = parent[v]
-    return v
-
-
-def _union(parent: list[int], a: int, b: int) -> None:
-    ra, rb = _find(parent, a), _find(parent, b)
-    if ra != rb:
-        parent[max(ra, rb)] = min(ra, rb)

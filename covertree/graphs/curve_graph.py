@@ -38,6 +38,7 @@ from typing import NamedTuple
 
 from covertree.errors import GraphError
 from covertree.graphs.canonical import _certify, _check_shape, edge_symmetry_factor
+from covertree.unionfind import DisjointSets
 
 __all__ = ["CurveGraph", "StableCurveGraph", "Vertex"]
 
@@ -377,18 +378,11 @@ def _check_legs(legs: tuple) -> None:
 
 
 def _check_connected(n: int, edges: tuple) -> None:
-    parent = list(range(n))
-
-    def find(v: int) -> int:
-        while parent[v] != v:
-            v = parent[v]
-        return v
-
+    sets = DisjointSets(n)
     for a, b in edges:
-        parent[find(a)] = find(b)
-    roots = {find(v) for v in range(n)}
-    if len(roots) > 1:
-        raise GraphError(f"the graph is disconnected ({len(roots)} components)")
+        sets.union(a, b)
+    if sets.count() > 1:
+        raise GraphError(f"the graph is disconnected ({sets.count()} components)")
 
 
 def _relabelled(genera, edges, legs, order) -> tuple[tuple, tuple, tuple]:

@@ -41,6 +41,15 @@ Converting to other conventions (never mix them):
   (for instance the one-part double Hurwitz numbers of Goulden-Jackson-Vakil
   label the preimages of infinity: theirs = ours x ``|Aut beta|``).
 
+References
+----------
+G. Frobenius, "Uber Gruppencharaktere", Sitzungsberichte der Preussischen
+Akademie der Wissenschaften zu Berlin (1896): Frobenius' formula
+A. D. Mednykh, "Determination of the number of nonequivalent coverings over
+a compact Riemann surface", Soviet Mathematics Doklady 19 (1978)
+S. K. Lando and A. K. Zvonkin, "Graphs on Surfaces and Their Applications"
+(2004), appendix A: Hurwitz numbers by characters, connected numbers
+
 Examples
 --------
 Double covers of an elliptic curve branched at two points: the four pairs

@@ -7,6 +7,11 @@ Branch points are labelled ``1..b`` in the order of ``profiles``.  The target
 ``(h, b)`` must be a stable pointed curve (``2h - 2 + b > 0``); to count
 unramified covers of an elliptic curve, mark one point with profile ``1^d``.
 
+References
+----------
+A. Hurwitz, "Uber Riemann'sche Flachen mit gegebenen Verzweigungspunkten",
+Mathematische Annalen 39 (1891): the Riemann-Hurwitz formula
+
 Examples
 --------
 >>> p = HurwitzProblem.build(degree=2, target_genus=1, genus=2)

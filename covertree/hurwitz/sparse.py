@@ -29,6 +29,20 @@ per call (nothing outlives the call), so the memory is polynomial in the degree
 and the number of branch points.  The connected recursion on the orbit of sheet
 0 is the one of :mod:`covertree.hurwitz.numbers`, on this short form.
 
+References
+----------
+G. Frobenius, "Uber Gruppencharaktere", Sitzungsberichte der Preussischen
+Akademie der Wissenschaften zu Berlin (1896): Frobenius' formula
+I. G. Macdonald, "Symmetric Functions and Hall Polynomials", 2nd ed. (1995),
+I.7 Example 7: the content formula
+J. S. Frame, G. de B. Robinson and R. M. Thrall, "The hook graphs of the
+symmetric group", Canadian Journal of Mathematics 6 (1954): the hook length
+formula
+F. D. Murnaghan, "The characters of the symmetric group", American Journal of
+Mathematics 59 (1937); T. Nakayama, "On some modular properties of irreducible
+representations of a symmetric group I", Japanese Journal of Mathematics 17
+(1940): the Murnaghan-Nakayama rule
+
 Examples
 --------
 Genus-2 covers of an elliptic curve (two simple points) at degree 4: the

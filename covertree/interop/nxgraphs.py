@@ -89,9 +89,9 @@ from networkx.algorithms.isomorphism import GraphMatcher, MultiGraphMatcher
 
 from covertree.catalogue.covers import Cover, make_graph
 from covertree.errors import GraphError
-from covertree.export.rational import rational_str
 from covertree.graphs.canonical import canonical_form
 from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
+from covertree.rational import rational_str
 from covertree.strata.base import BaseStratum
 
 __all__ = [

@@ -27,6 +27,14 @@ the covers with these data.  The weight of the strata of the cover space,
 ``#branches/|Aut f| = mult / (|Aut f| prod_q L_q)``, is :attr:`CoverKey.weight`
 after grouping.
 
+References
+----------
+J. Harris and D. Mumford, "On the Kodaira dimension of the moduli space of
+curves", Inventiones Mathematicae 67 (1982): admissible covers
+F. F. Knudsen, "The projectivity of the moduli space of stable curves II:
+the stacks M_{g,n}", Mathematica Scandinavica 52 (1983): stabilisation with
+marked points
+
 Examples
 --------
 Genus-2 double covers of ``P^1`` over the ``2|4`` divisor: the two unramified
@@ -51,7 +59,7 @@ from math import lcm, prod
 from covertree.catalogue.covers import legs_per_vertex
 from covertree.catalogue.local_structure import node_type
 from covertree.errors import IdentityError
-from covertree.stabilisation.stabilise import stabilise
+from covertree.stabilisation.stabilise import smoothing_orders, stabilise
 
 __all__ = ["EdgeData", "CoverKey", "edge_data", "cover_edges", "grouped"]
 
@@ -109,9 +117,8 @@ def edge_data(genera: Sequence[int], edges: Sequence[SourceEdge], n_base_edges: 
     lcms = [1] * n_base_edges
     for _, _, q, e in edges:
         lcms[q] = lcm(lcms[q], e)
-    all_nodes = [0] * n_base_edges
-    for _, _, q, e in edges:
-        all_nodes[q] += lcms[q] // e
+    over, index = [q for _, _, q, _ in edges], [e for _, _, _, e in edges]
+    all_nodes = smoothing_orders(range(len(edges)), over, index, lcms)
     names = _divisor_names(genus, len(carriers))
     deltas = [[0] * len(names) for _ in range(n_base_edges)]
     psis = [[0] * len(carriers) for _ in range(n_base_edges)]
@@ -120,13 +127,11 @@ def edge_data(genera: Sequence[int], edges: Sequence[SourceEdge], n_base_edges: 
         stab = stabilise(genera, [(a, b) for a, b, _, _ in edges], legs)
         for n, chain in enumerate(stab.chains if names else ()):
             j = _type_index(node_type(stab.genera, stab.edges, n, stab.legs), names)
-            for s in chain:
-                _, _, q, e = edges[s]
-                deltas[q][j] += lcms[q] // e
+            for q, order in enumerate(smoothing_orders(chain, over, index, lcms)):
+                deltas[q][j] += order
         for k, path in enumerate(stab.leg_paths):
-            for s in path:
-                _, _, q, e = edges[s]
-                psis[q][k] += lcms[q] // e
+            for q, order in enumerate(smoothing_orders(path, over, index, lcms)):
+                psis[q][k] += order
     return tuple(EdgeData(lcms[q], all_nodes[q], tuple(deltas[q]), tuple(psis[q])) for q in range(n_base_edges))
 
 

@@ -3,6 +3,7 @@ shards or a dask cluster, with an SQLite results store that survives
 interruption.
 
 It sits after the catalogue layer (it tallies :func:`iter_stratum`) and
-before the exporters; it reads exact rationals as text through
-:mod:`covertree.export.rational`, a leaf module.
+before the exporters, which it does not import; it stores exact rationals
+as text through :mod:`covertree.rational`, a leaf module at the bottom of
+the package.
 """

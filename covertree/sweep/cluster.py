@@ -13,7 +13,9 @@ Dask Development Team, *Dask: Library for dynamic task scheduling* (2016),
 
 from __future__ import annotations
 
+import asyncio
 import logging
+from contextlib import contextmanager
 from collections.abc import Iterator, Sequence
 
 from covertree.errors import InputError
@@ -21,8 +23,27 @@ from covertree.sweep.tasks import StratumSummary, Task, compute_task, largest_fi
 
 __all__ = ["DaskBackend", "CONNECT_TIMEOUT"]
 
-#: Seconds to wait for the scheduler before giving up.
+#: Seconds to wait for the scheduler's handshake before giving up (a closed
+#: port, an address that accepts and never answers, another protocol).
 CONNECT_TIMEOUT = 5.0
+
+
+@contextmanager
+def _quiet_logs() -> Iterator[None]:
+    """Silence distributed's own log lines (the refusal is one line of ours)."""
+    quiet = [logging.getLogger(name) for name in ("distributed", "distributed.client", "distributed.comm")]
+    levels = [log.level for log in quiet]
+    for log in quiet:
+        log.setLevel(logging.CRITICAL)
+    try:
+        yield
+    finally:
+        for log, level in zip(quiet, levels):
+            log.setLevel(level)
+
+
+def _short(address: str) -> str:
+    return repr(address) if len(address) <= 60 else f"{address[:60]!r}... ({len(address)} characters)"
 
 
 def _distributed():
@@ -61,20 +82,22 @@ class DaskBackend:
         return False
 
     def _connect(self):
-        quiet = [logging.getLogger(name) for name in ("distributed", "distributed.client")]
-        levels = [log.level for log in quiet]
-        for log in quiet:
-            log.setLevel(logging.CRITICAL)
-        try:
-            return self._distributed.Client(self.address, timeout=self.timeout, set_as_default=False)
-        except (OSError, TimeoutError, ValueError, TypeError) as error:
-            raise InputError(
-                f"cannot reach the dask scheduler at {self.address!r} within {self.timeout:g} s "
-                f"({type(error).__name__}); give the address of a running scheduler, e.g. tcp://host:8786"
-            ) from None
-        finally:
-            for log, level in zip(quiet, levels):
-                log.setLevel(level)
+        """Shake hands with the scheduler within the timeout (a closed port, a
+        peer that never answers or one that speaks another protocol is refused
+        before any client exists), then open the client."""
+        with _quiet_logs():
+            try:
+                asyncio.run(asyncio.wait_for(self._handshake(), self.timeout))
+                return self._distributed.Client(self.address, timeout=self.timeout, set_as_default=False)
+            except Exception as error:  # whatever the peer sent: refuse in one line
+                raise InputError(
+                    f"cannot reach the dask scheduler at {_short(self.address)} within {self.timeout:g} s "
+                    f"({type(error).__name__}); give the address of a running scheduler, e.g. tcp://host:8786"
+                ) from None
+
+    async def _handshake(self) -> None:
+        comm = await self._distributed.comm.connect(self.address, timeout=self.timeout)
+        await comm.close()
 
     def run(self, tasks: Sequence[Task]) -> Iterator[tuple[Task, StratumSummary]]:
         """Yield ``(task, summary)`` as the cluster finishes them (any order)."""

@@ -91,7 +91,7 @@ def merge_reports(named: Sequence[tuple[str, SweepReport]]) -> SweepReport:
         _check_compatible(name, report, first_name, first)
     by_index = _one_each(named, first.shard.count)
     indices = [i for _, r in by_index for i in r.shard.task_indices]
-    if sorted(indices) != list(range(first.shard.tasks)):
+    if len(indices) != first.shard.tasks or sorted(indices) != list(range(first.shard.tasks)):
         raise InputError(f"the shards' task indices do not cover tasks 0..{first.shard.tasks - 1} "
                          "exactly once: the files are not shards of one run")
     rows = dict(zip(indices, (row for _, r in by_index for row in r.rows)))
@@ -117,7 +117,22 @@ def _one_each(named: Sequence[tuple[str, SweepReport]], count: int) -> list[tupl
         if i in by_index:
             raise InputError(f"shard {i}/{count} is given twice ({by_index[i][0]} and {name})")
         by_index[i] = (name, report)
-    missing = [f"{i}/{count}" for i in range(1, count + 1) if i not in by_index]
-    if missing:
-        raise InputError(f"shard(s) {', '.join(missing)} missing: merge needs all {count} shards")
+    if len(by_index) < count:
+        raise InputError(f"shard(s) {_missing(by_index, count)} missing: merge needs all {count} shards")
     return [by_index[i] for i in sorted(by_index)]
+
+
+def _missing(present: dict, count: int, most: int = 5) -> str:
+    """The first few shards ``i/count`` not in ``present`` (time bounded by
+    ``len(present) + most``, whatever the count).
+
+    >>> _missing({1: None, 3: None}, 10 ** 12)
+    '2/1000000000000, 4/1000000000000, 5/1000000000000, 6/1000000000000, 7/1000000000000 and 999999999993 more'
+    """
+    shown, i = [], 1
+    while len(shown) < min(most, count - len(present)):
+        if i not in present:
+            shown.append(f"{i}/{count}")
+        i += 1
+    rest = count - len(present) - len(shown)
+    return ", ".join(shown) + (f" and {rest} more" if rest else "")

@@ -18,7 +18,13 @@ Schema (``SCHEMA_VERSION``)::
 ``profiles`` is ``"2,1;2,1"``; ``stratum`` the canonical notation of the base
 stratum; ``grouping`` ``"orbit"`` or ``"labeled"``; weights are exact
 rationals as text ``"p/q"`` and ``landing`` a JSON object of such texts.  A
-store written with another schema or model version is refused untouched.
+store written with another schema or model version, one that fails SQLite's
+``PRAGMA integrity_check`` and one with a row that does not read back (edited
+by hand: ``'{bad'`` as landing, ``'1/0'`` as a weight) are refused untouched.
+Processes opening a new store at the same moment (the shards of an array
+job) wait for each other: creation is retried while SQLite reports the file
+busy, up to ``BUSY_TIMEOUT`` seconds.  A store in a folder without write
+permission can still be read (an export): it is then opened immutable.
 
 Examples
 --------
@@ -38,17 +44,21 @@ Examples
 from __future__ import annotations
 
 import json
+import re
+import reprlib
 import os
 import pathlib
 import sqlite3
-from collections.abc import Sequence
+import time
+from collections.abc import Callable, Sequence
 from fractions import Fraction
 
 from covertree import MODEL_VERSION, __version__
-from covertree.errors import InputError
-from covertree.export.rational import rational_str
+from covertree.errors import CovertreeError, InputError
+from covertree.rational import rational_str
 from covertree.hurwitz.problem import HurwitzProblem
-from covertree.sweep.tasks import StratumSummary, Task, problem_order
+from covertree.graphs.curve_graph import StableCurveGraph
+from covertree.sweep.tasks import StratumSummary, Task, divisor_names, problem_order
 from covertree.symmetric.partitions import Partition
 
 __all__ = ["ResultStore", "StoreError", "SCHEMA_VERSION"]
@@ -118,12 +128,15 @@ class ResultStore:
 
     def __init__(self, path: str, create: bool = True) -> None:
         self.path = path
-        if not create and not os.path.exists(path):
-            raise StoreError(f"store {path!r} does not exist")
+        problem = _path_problem(path, create)
+        if problem:
+            raise StoreError(problem)
         self._conn = _connect(path, create)
         try:
-            if _check(self._conn, path):
-                _initialise(self._conn, path)
+            if _while_busy(lambda: _check(self._conn, path), path):
+                if not create:
+                    raise StoreError(f"store {path!r} is empty: not a covertree store")
+                _while_busy(lambda: _initialise(self._conn, path), path)
             self._conn.execute("PRAGMA synchronous = NORMAL")
         except BaseException:
             self._conn.close()
@@ -151,7 +164,7 @@ class ResultStore:
         for task in tasks:
             row = self._conn.execute(query, _task_key(task)).fetchone()
             if row is not None:
-                found[task.index] = _summary(row)
+                found[task.index] = _summary(row, self.path)
         return found
 
     def save(self, task: Task, summary: StratumSummary) -> None:
@@ -174,7 +187,7 @@ class ResultStore:
         """Every stored result: problems in sweep order, then grouping and the
         position of the stratum."""
         rows = self._conn.execute("SELECT * FROM results WHERE model_version = ?", (MODEL_VERSION,))
-        keyed = [(row["grouping"], row["position"], _summary(row)) for row in rows]
+        keyed = [(row["grouping"], row["position"], _summary(row, self.path)) for row in rows]
         keyed.sort(key=lambda r: (problem_order(r[2].problem), r[0], r[1]))
         return [summary for _, _, summary in keyed]
 
@@ -193,12 +206,26 @@ class _transaction:
         return False
 
 
+def _path_problem(path: str, create: bool) -> str | None:
+    """Why ``path`` cannot be a store (one phrase), or ``None``."""
+    if path == "":
+        return "empty store name; give the path of an SQLite file"
+    if os.path.exists(path):
+        return None if os.path.isfile(path) else f"store {path!r} is not a regular file; give an SQLite file"
+    if not create:
+        return f"store {path!r} does not exist"
+    if os.path.islink(path):
+        return f"store {path!r} is a link to the missing {os.readlink(path)!r}; remove the link or give another name"
+    folder = os.path.dirname(os.path.abspath(path))
+    return None if os.path.isdir(folder) else f"store {path!r}: folder {folder!r} does not exist"
+
+
 def _connect(path: str, create: bool) -> sqlite3.Connection:
     try:
         if create:
             conn = sqlite3.connect(path, timeout=BUSY_TIMEOUT, isolation_level=None)
         else:
-            uri = pathlib.Path(path).absolute().as_uri() + "?mode=ro"
+            uri = pathlib.Path(path).absolute().as_uri() + _read_only_mode(path)
             conn = sqlite3.connect(uri, uri=True, timeout=BUSY_TIMEOUT, isolation_level=None)
     except sqlite3.Error as error:
         raise StoreError(f"cannot open store {path!r}: {error}") from None
@@ -206,18 +233,63 @@ def _connect(path: str, create: bool) -> sqlite3.Connection:
     return conn
 
 
+def _read_only_mode(path: str) -> str:
+    """URI parameters for reading ``path``: ``immutable`` when its folder is
+    not writable (SQLite could not create the shared-memory file a WAL store
+    needs; nobody can be writing it through a journal there either)."""
+    folder = os.path.dirname(os.path.abspath(path))
+    return "?mode=ro" if os.access(folder, os.W_OK | os.X_OK) else "?mode=ro&immutable=1"
+
+
+def _busy(error: sqlite3.Error) -> bool:
+    text = str(error)
+    return isinstance(error, sqlite3.OperationalError) and ("locked" in text or "busy" in text)
+
+
+def _while_busy(step: Callable[[], object], path: str):
+    """Run ``step``, again after a short pause while SQLite says the file is
+    busy (another process is creating or converting it), for at most
+    ``BUSY_TIMEOUT`` seconds; any other SQLite error refuses the store."""
+    deadline, pause = time.monotonic() + BUSY_TIMEOUT, 0.005
+    while True:
+        try:
+            return step()
+        except sqlite3.Error as error:
+            if not _busy(error) or time.monotonic() > deadline:
+                raise StoreError(f"cannot use store {path!r}: {error}") from None
+        time.sleep(pause)
+        pause = min(2 * pause, 0.25)
+
+
 def _check(conn: sqlite3.Connection, path: str) -> bool:
     """Validate an existing store without writing; ``True`` if it is empty (new)."""
     try:
         tables = {r[0] for r in conn.execute("SELECT name FROM sqlite_master WHERE type = 'table'")}
     except sqlite3.DatabaseError as error:
+        if _busy(error):
+            raise
         raise StoreError(f"{path!r} is not a covertree store ({error})") from None
     if not tables:
         return True
     if not {"meta", "results"} <= tables:
         raise StoreError(f"{path!r} is an SQLite file but not a covertree store (no meta/results tables)")
     _check_versions(conn, path)
+    _check_integrity(conn, path)
     return False
+
+
+def _check_integrity(conn: sqlite3.Connection, path: str) -> None:
+    """Refuse a store failing SQLite's ``PRAGMA integrity_check``."""
+    try:
+        verdict = conn.execute("PRAGMA integrity_check(1)").fetchone()[0]
+    except sqlite3.DatabaseError as error:
+        if _busy(error):
+            raise
+        raise StoreError(f"store {path!r} is damaged ({error}); use another --store file") from None
+    if verdict != "ok":
+        first = verdict.replace("\n", " ").replace("*** in database main *** ", "")
+        raise StoreError(f"store {path!r} fails SQLite's integrity check ({first[:120]}); "
+                         "use another --store file")
 
 
 def _check_versions(conn: sqlite3.Connection, path: str) -> None:
@@ -242,14 +314,74 @@ def _initialise(conn: sqlite3.Connection, path: str) -> None:
                                ("written_by", f"covertree {__version__}")):
                 conn.execute("INSERT OR IGNORE INTO meta (key, value) VALUES (?, ?)", (key, str(value)))
     except sqlite3.OperationalError as error:
+        if _busy(error):
+            raise
         raise StoreError(f"cannot write store {path!r}: {error}") from None
     _check_versions(conn, path)
 
 
-def _summary(row: sqlite3.Row) -> StratumSummary:
-    profiles = tuple(Partition.parse(t) for t in row["profiles"].split(";")) if row["profiles"] else ()
+_INTEGERS = ("genus", "target_genus", "degree", "position", "codim", "orbit_size", "n_covers")
+
+
+def _summary(row: sqlite3.Row, path: str) -> StratumSummary:
+    """The result stored in ``row``; a row that does not read back (edited by
+    hand) refuses the store."""
+    try:
+        return _decode(row)
+    except (CovertreeError, ValueError, TypeError, ZeroDivisionError, RecursionError) as error:
+        raise StoreError(f"store {path!r} has a damaged row (stratum {_short(row['stratum'])}): {error}; "
+                         "use another --store file or delete the row") from None
+
+
+def _decode(row: sqlite3.Row) -> StratumSummary:
+    bad = [k for k in _INTEGERS if type(row[k]) is not int]
+    if bad:
+        raise ValueError(f"{bad[0]} is {_short(row[bad[0]])}, not an integer")
+    profiles = tuple(Partition.parse(t) for t in _text(row, "profiles").split(";")) if row["profiles"] else ()
     problem = HurwitzProblem(row["genus"], row["target_genus"], row["degree"], profiles)
-    landing = tuple((name, Fraction(w)) for name, w in json.loads(row["landing"]).items())
     n_covers = None if row["n_covers"] == _NO_COUNT else row["n_covers"]
-    return StratumSummary(problem, row["stratum"], row["codim"], row["orbit_size"], n_covers,
-                          Fraction(row["hurwitz_number"]), landing)
+    StableCurveGraph.parse(_text(row, "stratum"))
+    landing = _landing(_text(row, "landing"), [*divisor_names(problem.genus), "other"])
+    summary = StratumSummary(problem, row["stratum"], row["codim"], row["orbit_size"], n_covers,
+                             _rational(row["hurwitz_number"], "hurwitz_number"), landing)
+    if _rational(row["total_weight"], "total_weight") != summary.total_weight:
+        raise ValueError(f"total_weight {_short(row['total_weight'])} is not the sum of the landing weights")
+    return summary
+
+
+def _landing(text: str, names: list[str]) -> tuple:
+    """The landing weights stored as ``text``, keys among ``names``."""
+    try:
+        landing = json.loads(text)
+    except json.JSONDecodeError:
+        raise ValueError(f"landing {_short(text)} is not JSON") from None
+    if not isinstance(landing, dict) or not set(landing) <= set(names):
+        raise ValueError(f"landing {_short(text)} is not a JSON object with keys among {', '.join(names)}")
+    return tuple((name, _rational(w, "landing")) for name, w in landing.items())
+
+
+def _text(row: sqlite3.Row, key: str) -> str:
+    if not isinstance(row[key], str):
+        raise ValueError(f"{key} is {_short(row[key])}, not text")
+    return row[key]
+
+
+def _rational(text, key: str) -> Fraction:
+    """An exact rational written ``p/q`` (never a float)."""
+    if not isinstance(text, str) or not _RATIONAL.match(text):
+        raise ValueError(f"{key} {_short(text)} is not a rational p/q")
+    return Fraction(text)
+
+
+_RATIONAL = re.compile(r"^-?[0-9]{1,4000}(/[0-9]{1,4000})?$", re.ASCII)
+
+
+def _short(value) -> str:
+    """``repr`` of a stored value, at most about 40 characters.
+
+    >>> _short("x" * 100)
+    "'xxxxxxxxxxxxxxxxx...xxxxxxxxxxxxxxxxxx'"
+    """
+    shortened = reprlib.Repr()
+    shortened.maxstring = shortened.maxother = 40
+    return shortened.repr(value)

@@ -12,11 +12,27 @@ removed on the beta-set (abacus) of ``lambda``: with ``l`` parts, the beta-set
 is ``{lambda_i + l - i}``; removing a strip of size ``k`` moves one bead from
 ``b`` to the empty position ``b - k``, and its height is the number of beads
 strictly between.  Parts of ``mu`` are used largest first; once only parts 1
-remain the character is ``dim lambda`` (hook length formula).  Values are
-memoised on ``(lambda, remaining mu)``, so a whole character table shares its
-sub-computations.
+remain the character is ``dim lambda``, computed by the branching rule
+``dim lambda = sum of dim(lambda - corner)`` over the removable corners
+(memoised: a table's dimensions share their sub-diagrams), and by the hook
+length formula ``d! / prod hooks`` only for diagrams too deep for that
+recursion.  Values are memoised on ``(lambda, remaining mu)``, so a whole
+character table shares its sub-computations.
 
 Conventions: ``(d)`` is the trivial representation, ``(1^d)`` the sign.
+
+References
+----------
+F. D. Murnaghan, "The characters of the symmetric group", American Journal
+of Mathematics 59 (1937); T. Nakayama, "On some modular properties of
+irreducible representations of a symmetric group I", Japanese Journal of
+Mathematics 17 (1940): the Murnaghan-Nakayama rule.
+J. S. Frame, G. de B. Robinson and R. M. Thrall, "The hook graphs of the
+symmetric group", Canadian Journal of Mathematics 6 (1954): the hook length
+formula.
+G. James and A. Kerber, "The representation theory of the symmetric group"
+(1981), sections 2.7 and 2.8: border strips on the abacus (beta-sets), and
+the branching rule for dimensions.
 
 Examples
 --------
@@ -40,7 +56,7 @@ from functools import lru_cache
 from math import factorial
 
 from covertree.errors import ProfileError
-from covertree.symmetric.partitions import Partition, _partitions, class_size, partitions_of
+from covertree.symmetric.partitions import Partition, class_size, partition_tuples, partitions_of
 
 __all__ = [
     "character",
@@ -117,7 +133,8 @@ def _hook_dimension(mask: int) -> int:
 
 
 def dimension(lam: Iterable[int]) -> int:
-    """Dimension ``chi_lambda(1^d)`` of the irreducible ``lambda`` (hook length formula).
+    """Dimension ``chi_lambda(1^d)`` of the irreducible ``lambda`` (branching
+    rule over the removable corners; hook length formula for very deep diagrams).
 
     >>> [dimension(p) for p in partitions_of(4)]
     [1, 3, 2, 3, 1]
@@ -210,7 +227,7 @@ def character_table(d: int) -> tuple[tuple[Partition, ...], tuple[tuple[int, ...
 @lru_cache(maxsize=None)
 def _masks(d: int) -> tuple[int, ...]:
     # same order as partitions_of(d), on its raw tuples (no re-validation)
-    return tuple(_mask(lam) for lam in _partitions(d, d))
+    return tuple(_mask(lam) for lam in partition_tuples(d))
 
 
 @lru_cache(maxsize=None)

@@ -25,6 +25,18 @@ lists a partition.  Adding a part ``k`` at least as large as every part on
 then carries the moments ``sum c^j`` (``j <= top``) of every size, in
 ``O(m^2 top^2)`` operations and ``O(m top)`` numbers.
 
+References
+----------
+I. G. Macdonald, "Symmetric Functions and Hall Polynomials", 2nd ed. (1995),
+I.7 Example 7: the content formula
+J. S. Frame, G. de B. Robinson and R. M. Thrall, "The hook graphs of the
+symmetric group", Canadian Journal of Mathematics 6 (1954): the hook length
+formula
+F. D. Murnaghan, "The characters of the symmetric group", American Journal of
+Mathematics 59 (1937); T. Nakayama, "On some modular properties of irreducible
+representations of a symmetric group I", Japanese Journal of Mathematics 17
+(1940): the Murnaghan-Nakayama rule
+
 Examples
 --------
 >>> content_sum((3, 1))

@@ -5,6 +5,11 @@ partition ``(2, 1, 1)`` of 4 is the cycle type of a transposition in S_4.
 ``z(mu) = |Aut mu| * prod(mu_i)`` is the order of the centraliser of a
 permutation of type ``mu`` and ``d!/z(mu)`` the size of its class.
 
+References
+----------
+B. E. Sagan, "The Symmetric Group", 2nd ed. (2001), section 1.1: cycle types,
+class sizes d!/z(mu) and centralisers (common knowledge)
+
 Examples
 --------
 >>> mu = Partition.parse("2,1^2")
@@ -79,6 +84,8 @@ class Partition(tuple):
             part, times = int(m.group(1)), int(m.group(2) or 1)
             if part == 0:
                 raise ProfileError(f"profile {text!r}: parts must be positive")
+            if times == 0:
+                raise ProfileError(f"profile {text!r}: {token.strip()!r} repeats a part 0 times; write k >= 1 in a^k")
             parts.extend([part] * times)
         return cls(parts)
 
@@ -149,6 +156,17 @@ def _partitions(n: int, largest: int) -> tuple[tuple[int, ...], ...]:
         for rest in _partitions(n - first, first):
             out.append((first,) + rest)
     return tuple(out)
+
+
+def partition_tuples(n: int) -> tuple[tuple[int, ...], ...]:
+    """All partitions of ``n`` as plain non-increasing tuples, in the order of
+    :func:`partitions_of` (no :class:`Partition` objects built: for tables
+    indexed by partitions).
+
+    >>> partition_tuples(4)
+    ((4,), (3, 1), (2, 2), (2, 1, 1), (1, 1, 1, 1))
+    """
+    return _partitions(n, n)
 
 
 def partitions_of(n: int) -> Iterator[Partition]:

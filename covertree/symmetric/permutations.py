@@ -23,6 +23,8 @@ from __future__ import annotations
 
 from collections.abc import Iterable, Sequence
 
+from covertree.unionfind import DisjointSets
+
 Perm = tuple[int, ...]
 
 
@@ -106,22 +108,13 @@ def orbits(d: int, gens: Iterable[Perm]) -> list[tuple[int, ...]]:
     >>> orbits(4, [(1, 0, 2, 3)])
     [(0, 1), (2,), (3,)]
     """
-    parent = list(range(d))
-
-    def find(i: int) -> int:
-        while parent[i] != i:
-            parent[i] = parent[parent[i]]
-            i = parent[i]
-        return i
-
+    sets = DisjointSets(d)
     for g in gens:
         for i, j in enumerate(g):
-            ri, rj = find(i), find(j)
-            if ri != rj:
-                parent[max(ri, rj)] = min(ri, rj)
+            sets.union(i, j)
     groups: dict[int, list[int]] = {}
-    for i in range(d):
-        groups.setdefault(find(i), []).append(i)
+    for i, root in enumerate(sets.roots()):
+        groups.setdefault(root, []).append(i)
     return [tuple(v) for _, v in sorted(groups.items())]
 
 

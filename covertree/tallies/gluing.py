@@ -51,6 +51,8 @@ from __future__ import annotations
 from collections import Counter
 from collections.abc import Sequence
 
+from covertree.unionfind import DisjointSets
+
 __all__ = ["count_matchings"]
 
 Group = tuple[int, int, int]  # (base edge, side, length)
@@ -133,22 +135,14 @@ class _Matcher:
         is joined to every holder of ``(k, 1, l)``: a matched pair joins two
         such holders, so otherwise no matching has a connected source (the
         usual case of pieces whose lengths at a node meet no other piece's)."""
-        parent = list(range(self.n))
-
-        def root(i: int) -> int:
-            while parent[i] != i:
-                parent[i] = parent[parent[i]]
-                i = parent[i]
-            return i
-
+        sets = DisjointSets(self.n)
         for (k, side, length), holders in self.holders.items():
             partners = self.holders.get((k, 1 - side, length), ())
             if side or not partners:
                 continue
-            first = root(partners[0])
             for i in list(holders) + list(partners):
-                parent[root(i)] = first
-        return len({root(i) for i in range(self.n)}) == 1
+                sets.union(partners[0], i)
+        return sets.count() == 1
 
     def _reach(self, i: int) -> None:
         self.is_reached[i] = True

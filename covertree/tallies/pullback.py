@@ -14,6 +14,11 @@ functions of the entry.  The branch total ``sum_f #branches * L / |Aut f|`` is
 the total weight.  The rows are :class:`covertree.catalogue.pullback.PullbackRow`
 objects with ``n_covers = 0`` (the type engine lists no covers).
 
+References
+----------
+J. Harris and D. Mumford, "On the Kodaira dimension of the moduli space of
+curves", Inventiones Mathematicae 67 (1982): admissible covers
+
 Examples
 --------
 Genus-2 double covers of ``P^1``, as in :mod:`covertree.catalogue.pullback`:

@@ -20,6 +20,11 @@ whose genera add up to at most ``max_genus``: a connected source of genus
 number of shapes small for large degree (over a genus-0 component a piece
 unramified at the legs is a cyclic cover, ``alpha = (k), (k)``).
 
+References
+----------
+A. Hurwitz, "Uber Riemann'sche Flachen mit gegebenen Verzweigungspunkten",
+Mathematische Annalen 39 (1891): the Riemann-Hurwitz formula
+
 Examples
 --------
 Over a rational component with one simple leg (degree 3) and one half-edge:
@@ -40,13 +45,13 @@ from collections import Counter
 from collections.abc import Sequence
 from dataclasses import dataclass, field
 from fractions import Fraction
-from functools import lru_cache
+from functools import cached_property, lru_cache
 from itertools import product
 
 from covertree.hurwitz.numbers import connected_hurwitz
 from covertree.symmetric.partitions import partitions_of, sub_partitions
 
-__all__ = ["Shape", "piece_shapes", "local_multisets"]
+__all__ = ["Shape", "piece_shapes", "candidate_shapes", "local_multisets", "vertex_pieces"]
 
 Profile = tuple[int, ...]
 
@@ -64,15 +69,23 @@ class Shape:
         Profile at each half-edge point of the vertex, in the vertex's order.
     genus : int
         By Riemann-Hurwitz.
+    vertex_genus : int
+        Genus of the base vertex.
     hurwitz : Fraction
-        Connected Hurwitz number of the piece (unlabelled preimages).
+        Connected Hurwitz number of the piece (unlabelled preimages),
+        computed on first use: most candidate shapes at high degree are never
+        used, and this number is the dear part of a shape.
     """
 
     degree: int
     legs: tuple[Profile, ...]
     halves: tuple[Profile, ...]
     genus: int = field(compare=False)
-    hurwitz: Fraction = field(compare=False)
+    vertex_genus: int = field(compare=False, default=0)
+
+    @cached_property
+    def hurwitz(self) -> Fraction:
+        return connected_hurwitz(self.degree, self.vertex_genus, self.legs + self.halves)
 
 
 @lru_cache(maxsize=None)
@@ -101,6 +114,14 @@ def piece_shapes(degree: int, vertex_genus: int, leg_profiles: tuple[Profile, ..
     """Every shape of degree ``<= degree`` and genus ``<= max_genus`` with
     nonzero weight over a vertex of genus ``vertex_genus`` with legs of
     profiles ``leg_profiles`` and ``n_halves`` half-edge points, sorted."""
+    return tuple(s for s in candidate_shapes(degree, vertex_genus, leg_profiles, n_halves, max_genus) if s.hurwitz)
+
+
+@lru_cache(maxsize=None)
+def candidate_shapes(degree: int, vertex_genus: int, leg_profiles: tuple[Profile, ...],
+                     n_halves: int, max_genus: int) -> tuple[Shape, ...]:
+    """The shapes allowed by Riemann-Hurwitz, weight not yet known (some are
+    0), sorted: :func:`piece_shapes` before the weight filter."""
     out: list[Shape] = []
     for k in range(1, degree + 1):
         options = [[tuple(nu) for nu in sub_partitions(mu, k)] for mu in leg_profiles]
@@ -118,18 +139,24 @@ def _shapes_with_legs(k: int, h: int, legs: tuple[Profile, ...], n_halves: int,
         total = base - 2 * genus
         if n_halves == 0 and total != 0:
             continue
-        for halves in _half_profiles(k, n_halves, total):
-            weight = connected_hurwitz(k, h, legs + halves)
-            if weight:
-                out.append(Shape(k, legs, halves, genus, weight))
+        out.extend(Shape(k, legs, halves, genus, h) for halves in _half_profiles(k, n_halves, total))
     return out
 
 
 def local_multisets(degree: int, vertex_genus: int, leg_profiles: tuple[Profile, ...],
-                    n_halves: int, max_genus: int) -> list[tuple[int, ...]]:
+                    n_halves: int, max_genus: int,
+                    loops: tuple[tuple[int, int], ...] = ()) -> list[tuple[int, ...]]:
     """Local multisets over one vertex, as sorted tuples of indices into
     ``piece_shapes(degree, vertex_genus, leg_profiles, n_halves, max_genus)``,
     in lexicographic order.
+
+    ``loops`` are pairs ``(p, q)`` of half-edge points of the vertex that are
+    the two ends of one loop: only multisets whose profiles at ``p`` and at
+    ``q`` agree (balanced over the loop) are returned.  When every piece
+    unramified at the legs has equal profiles at ``p`` and ``q`` (always so
+    over a rational vertex: those pieces are cyclic), balance is decided by
+    the ramified pieces, so unbalanced ones are dropped before the last phase
+    instead of after it; this is most of the multisets at high degree.
 
     Method: the cycles of length ``>= 2`` of the legs are *slots* ``(leg,
     length)`` with a need (the multiplicity in ``mu_j``).  Once the degrees add
@@ -143,18 +170,58 @@ def local_multisets(degree: int, vertex_genus: int, leg_profiles: tuple[Profile,
     need 1 (a simple branch point) are bits of one integer mask.
     """
     shapes = piece_shapes(degree, vertex_genus, leg_profiles, n_halves, max_genus)
-    plan = _SlotPlan(shapes, leg_profiles)
+    plan = _SlotPlan(shapes, leg_profiles, loops)
     out: list[tuple[int, ...]] = []
     plan.cover(0, -1, degree, max_genus, 0, [], out)
-    return sorted(tuple(sorted(m)) for m in out)
+    return sorted(tuple(sorted(m)) for m in out if _balanced(shapes, m, loops))
+
+
+def vertex_pieces(degree: int, vertex_genus: int, leg_profiles: tuple[Profile, ...], n_halves: int,
+                  max_genus: int, loops: tuple[tuple[int, int], ...] = ()
+                  ) -> tuple[tuple[Shape, ...], list[tuple[int, ...]]]:
+    """The local multisets of :func:`local_multisets` with the shapes they
+    use: ``(shapes, multisets)``, ``shapes`` sorted, each multiset a sorted
+    tuple of indices into ``shapes``, in lexicographic order.
+
+    The same multisets as ``local_multisets`` (over the shapes of nonzero
+    weight), found without the weight of every candidate shape: the
+    multisets are built from the candidates of :func:`candidate_shapes`, and
+    only the shapes that occur in one are weighed (a multiset holding a shape
+    of weight 0 is dropped).  Sub-multisets of a sorted list keep their
+    order, so the order is that of ``local_multisets``.
+
+    >>> shapes, multisets = vertex_pieces(3, 0, ((2, 1),), 1, 2)
+    >>> [(s.degree, s.halves) for s in shapes], multisets
+    ([(1, ((1,),)), (2, ((2,),))], [(0, 1)])
+    """
+    candidates = candidate_shapes(degree, vertex_genus, leg_profiles, n_halves, max_genus)
+    plan = _SlotPlan(candidates, leg_profiles, loops)
+    found: list[tuple[int, ...]] = []
+    plan.cover(0, -1, degree, max_genus, 0, [], found)
+    kept = sorted(tuple(sorted(m)) for m in found
+                  if _balanced(candidates, m, loops) and all(candidates[i].hurwitz for i in m))
+    used = sorted({i for m in kept for i in m})
+    index = {i: n for n, i in enumerate(used)}
+    return tuple(candidates[i] for i in used), [tuple(index[i] for i in m) for m in kept]
+
+
+def _balanced(shapes: Sequence["Shape"], multiset: Sequence[int], loops: tuple[tuple[int, int], ...]) -> bool:
+    """Whether the multiset's profiles agree at both ends of every loop."""
+    for p, q in loops:
+        if Counter(x for i in multiset for x in shapes[i].halves[p]) != \
+                Counter(x for i in multiset for x in shapes[i].halves[q]):
+            return False
+    return True
 
 
 class _SlotPlan:
     """The slots of one vertex and, per shape, the slots it uses."""
 
-    def __init__(self, shapes: Sequence[Shape], leg_profiles: tuple[Profile, ...]) -> None:
+    def __init__(self, shapes: Sequence[Shape], leg_profiles: tuple[Profile, ...],
+                 loops: tuple[tuple[int, int], ...] = ()) -> None:
         slots = sorted({(j, x) for j, mu in enumerate(leg_profiles) for x in mu if x > 1})
         self.shapes = shapes
+        self.loops = loops
         self.need = [Counter(leg_profiles[j])[x] for j, x in slots]
         self.bit = [1 << n if self.need[n] == 1 else 0 for n in range(len(slots))]
         where = {s: n for n, s in enumerate(slots)}
@@ -173,6 +240,10 @@ class _SlotPlan:
             (self.users[used[0][0]] if used else self.free).append(i)
         self.rows = [(sh.degree, sh.genus, b, m, sp)
                      for sh, b, m, sp in zip(shapes, self.bits, self.multi, self.spend)]
+        # balance over the loops is decided before the last phase when the
+        # pieces of that phase are balanced one by one
+        self.early = bool(loops) and all(shapes[i].halves[p] == shapes[i].halves[q]
+                                         for i in self.free for p, q in loops)
 
     def _open(self, slot: int, mask: int) -> int:
         """The first slot from ``slot`` on that is still needed."""
@@ -186,7 +257,8 @@ class _SlotPlan:
         if opened != slot:
             slot, last = opened, -1
         if slot == len(self.need):
-            self.fill(0, left, genus_left, acc, out)
+            if not self.early or _balanced(self.shapes, acc, self.loops):
+                self.fill(0, left, genus_left, acc, out)
             return
         users = self.users[slot]
         for t in range(bisect_left(users, last), len(users)):

@@ -124,10 +124,10 @@ from covertree.graphs.canonical import _certify
 from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.monodromy.local import special_points
-from covertree.stabilisation.stabilise import Stabilised, stabilise
+from covertree.stabilisation.stabilise import Stabilised, smoothing_orders, stabilise
 from covertree.strata.base import BaseStratum
 from covertree.tallies.gluing import count_matchings
-from covertree.tallies.shapes import Shape, local_multisets, piece_shapes
+from covertree.tallies.shapes import Shape, vertex_pieces
 
 __all__ = ["TallyEntry", "TypeTally", "TallyCatalogue", "CoverType", "tally_stratum", "tally_catalogue", "iter_types"]
 
@@ -253,8 +253,9 @@ class TypeTally:
         out = []
         for e in self.entries:
             big_l = lcm(*e.edge_profiles[0])
-            index = [l for _, _, _, l in e.edges]
-            orders = [(n, sum(big_l // index[s] for s in chain)) for n, chain in enumerate(e.stabilised.chains)]
+            over, index = [q for _, _, q, _ in e.edges], [l for _, _, _, l in e.edges]
+            orders = [(n, smoothing_orders(chain, over, index, (big_l,))[0])
+                      for n, chain in enumerate(e.stabilised.chains)]
             out.append((e, Fraction(e.weight, big_l), orders))
         return out
 
@@ -285,6 +286,42 @@ class _Vertex:
     shapes: tuple[Shape, ...]
     multisets: tuple[tuple[int, ...], ...]
     halves: tuple[tuple, ...]  # per half point of the vertex: ("half", k, side)
+    groups: tuple[frozenset, ...] = ()  # per shape, its port groups (k, side, length)
+
+
+def _shape_groups(shape: Shape, halves: Sequence[tuple]) -> frozenset:
+    """The port groups ``(k, side, length)`` a piece of this shape has."""
+    return frozenset((k, side, length) for (_, k, side), profile in zip(halves, shape.halves)
+                     for length in set(profile))
+
+
+def _lengths_connect(groups: Sequence[frozenset]) -> bool:
+    """Whether the pieces are connected when every holder of a port group
+    ``(k, 0, l)`` is joined to every holder of ``(k, 1, l)``.  A matched pair
+    joins two such holders, so otherwise no matching of these pieces has a
+    connected source; most balanced choices at high degree fail here, which
+    is why it is tested before anything else is built for a choice."""
+    if len(groups) == 1:
+        return True
+    present = set().union(*groups)
+    hubs: dict[tuple[int, int], list[int]] = {}
+    for i, g in enumerate(groups):
+        for k, side, length in g:
+            if (k, 1 - side, length) in present:
+                hubs.setdefault((k, length), []).append(i)
+    seen, todo, used = {0}, [0], set()
+    while todo:
+        i = todo.pop()
+        for k, side, length in groups[i]:
+            hub = (k, length)
+            if hub in used or hub not in hubs:
+                continue
+            used.add(hub)
+            for j in hubs[hub]:
+                if j not in seen:
+                    seen.add(j)
+                    todo.append(j)
+    return len(seen) == len(groups)
 
 
 def _vertex_data(base: StableCurveGraph, degree: int, genus: int, profiles: Sequence[Profile]) -> list[_Vertex]:
@@ -293,7 +330,11 @@ def _vertex_data(base: StableCurveGraph, degree: int, genus: int, profiles: Sequ
         legs = tuple(tuple(profiles[s[1] - 1]) for s in spec if s[0] == "leg")
         halves = tuple(s for s in spec if s[0] == "half")
         key = (degree, base.vertex_genera[v], legs, len(halves), genus)
-        out.append(_Vertex(piece_shapes(*key), tuple(local_multisets(*key)), halves))
+        ends = {(k, side): p for p, (_, k, side) in enumerate(halves)}
+        loops = tuple((ends[(k, 0)], ends[(k, 1)]) for k, (a, b) in enumerate(base.nodes) if a == b == v)
+        shapes, multisets = vertex_pieces(*key, loops)
+        out.append(_Vertex(shapes, tuple(multisets), halves,
+                           tuple(_shape_groups(sh, halves) for sh in shapes)))
     return out
 
 
@@ -302,6 +343,31 @@ def _union_profiles(shapes: Sequence[Shape], multiset: Sequence[int], n_halves: 
         tuple(sorted((x for i in multiset for x in shapes[i].halves[p]), reverse=True))
         for p in range(n_halves)
     )
+
+
+def _multiset_options(vd: _Vertex) -> list[tuple[tuple[int, ...], tuple[Profile, ...], int]]:
+    """``(multiset, profiles at the half points, genus)`` for every local
+    multiset of a vertex.  The multisets come sorted, so consecutive ones
+    share a prefix: the profiles are extended from the longest shared prefix
+    (a stack), one merge of sorted runs per new piece, instead of sorting
+    every multiset's points afresh (the hot spot at high degree)."""
+    n = len(vd.halves)
+    stack: list[tuple[tuple[Profile, ...], int]] = [(((),) * n, 0)]
+    previous: tuple[int, ...] = ()
+    out = []
+    for m in vd.multisets:
+        common = 0
+        while common < min(len(m), len(previous)) and m[common] == previous[common]:
+            common += 1
+        del stack[common + 1:]
+        for i in m[common:]:
+            profiles, genus = stack[-1]
+            shape = vd.shapes[i]
+            stack.append((tuple(tuple(sorted(profiles[p] + shape.halves[p], reverse=True)) for p in range(n)),
+                          genus + shape.genus))
+        out.append((m, *stack[-1]))
+        previous = m
+    return out
 
 
 def _choices(base: StableCurveGraph, data: list[_Vertex], genus: int) -> Iterator[tuple[tuple[int, ...], ...]]:
@@ -314,10 +380,7 @@ def _choices(base: StableCurveGraph, data: list[_Vertex], genus: int) -> Iterato
     checks: list[list[tuple]] = [[] for _ in data]
     for k, (i, j) in enumerate(base.nodes):
         checks[max(i, j)].append((where[(k, 0)], where[(k, 1)]))
-    options = []
-    for vd in data:
-        options.append([(m, _union_profiles(vd.shapes, m, len(vd.halves)), sum(vd.shapes[i].genus for i in m))
-                        for m in vd.multisets])
+    options = [_multiset_options(vd) for vd in data]
     chosen: list = []
 
     def rec(v: int, genus_left: int):
@@ -378,6 +441,8 @@ def _mark_assignments(base: StableCurveGraph, vertex: Sequence[int], shapes: Seq
 
 def _choice_entries(base: StableCurveGraph, data: list[_Vertex], choice, genus: int,
                     marks: Sequence[tuple[int, int]] = ()) -> list[TallyEntry]:
+    if not _lengths_connect([data[v].groups[s] for v, m in enumerate(choice) for s in m]):
+        return []
     vertex = [v for v, m in enumerate(choice) for _ in m]
     shapes = [data[v].shapes[s] for v, m in enumerate(choice) for s in m]
     classes = _class_ids(choice)

@@ -113,3 +113,79 @@ def test_separating_node_of_index_two():
     s = local_structure(c)
     assert (s.nodes[0].indices, s.nodes[0].lcm, s.branches) == ((2,), 2, 1)
     assert [(n.order, n.type) for n in s.stable_nodes] == [(1, "delta_1")]
+
+
+def test_parallel_stable_loops_are_listed_by_order():
+    # Degree-3 covers of an elliptic curve with two simple branch points, over
+    # the divisor where the curve becomes a nodal rational curve carrying both
+    # points (worked by hand): the three sheets over the node split as
+    #   1 + 2: a rational source with two loops of indices 1 and 2 (L = 2,
+    #          orders 2/1 = 2 and 2/2 = 1), or
+    #   1 + 1 + 1: two rational curves meeting twice, one with a loop (L = 1):
+    #          the first is a rational bridge, whose two nodes make one loop of
+    #          order 1 + 1 = 2 beside the untouched loop of order 1,
+    #   or 3: an elliptic source with one loop of order 3/3 = 1.
+    # Parallel stable nodes (here two loops at the one stable vertex) are
+    # listed by order, each at its position in the stable source.
+    covers = stratum_covers(parse_graph("g0{1,2} | 0-0"), 3, [(2, 1), (2, 1)])
+    seen = set()
+    for c in covers:
+        s = local_structure(c)
+        index = c.raw.source_edge_index
+        assert [n.edge for n in s.stable_nodes] == list(range(len(s.stable_nodes)))
+        assert [n.ends for n in s.stable_nodes] == list(c.stable_source.nodes)
+        assert all(n.type == "delta_0" for n in s.stable_nodes)
+        rows = [(n.order, sorted(index[i] for i in n.chain)) for n in s.stable_nodes]
+        seen.add(c.source.notation)
+        if c.source.notation == "g0 | 0-0^2":
+            assert rows == [(1, [2]), (2, [1])]
+        elif c.source.notation == "g0, g0 | 0-1^2, 1-1":
+            assert rows == [(1, [1]), (2, [1, 1])]
+        else:
+            assert (c.source.notation, rows) == ("g1 | 0-0", [(1, [3])])
+    assert seen == {"g0 | 0-0^2", "g0, g0 | 0-1^2, 1-1", "g1 | 0-0"}
+
+
+def test_orders_along_a_branch_need_a_codimension_one_base():
+    # two nodes on the base (codimension two): the orders are vectors, not numbers
+    import pytest
+
+    from covertree.errors import ProblemError
+
+    [c, *_] = stratum_covers(parse_graph("g0{1,2}, g0, g0{3,4,5,6} | 0-1, 1-2"), 2, [(2,)] * 6)
+    s = local_structure(c)
+    assert s.stable_nodes is None and len(s.nodes) == 2
+    with pytest.raises(ProblemError, match="^orders along a branch are defined on codimension-one base strata only$"):
+        s.order_of("delta_0")
+
+
+def test_node_types_where_no_moduli_space_exists():
+    # Mbar_{g,n} exists for 2g - 2 + n > 0 (Deligne-Mumford, Knudsen; common
+    # knowledge): none for a nodal genus-1 curve without points or a rational
+    # chain with two points; Mbar_{1,1} and Mbar_{0,4} have their divisors
+    assert node_type([0], [(0, 0)], 0) is None
+    assert node_type([0, 0], [(0, 1)], 0, [[1], [2]]) is None
+    assert node_type([0], [(0, 0)], 0, [[1]]) == "delta_0"
+    assert node_type([0, 0], [(0, 1)], 0, [[1, 2], [3, 4]]) == "delta_0_{1,2}"
+    assert node_type([1, 0], [(0, 1)], 0) is None
+    assert node_type([1, 1], [(0, 1)], 0) == "delta_1"
+
+
+def test_separating_node_far_along_a_chain():
+    # four elliptic curves in a chain: the third node splits genus 3 | 1, so it
+    # is delta_1 (worked by hand: the side of the third curve reaches the first)
+    genera, edges = [1, 1, 1, 1], [(0, 1), (1, 2), (2, 3)]
+    assert [node_type(genera, edges, k) for k in range(3)] == ["delta_1", "delta_2", "delta_1"]
+    assert node_type([1, 1, 1, 1], [(3, 2), (2, 1), (1, 0)], 0) == "delta_1"
+
+
+def test_base_nodes_are_listed_by_edge():
+    # codimension two: the chain g0{1,2} - g0 - g0{3,4,5,6}; degree 2, every base
+    # node has preimages (the sheets over it), so each has its own lcm and branches
+    covers = stratum_covers(parse_graph("g0{1,2}, g0, g0{3,4,5,6} | 0-1, 1-2"), 2, [(2,)] * 6)
+    assert covers
+    for c in covers:
+        s = local_structure(c)
+        assert [n.edge for n in s.nodes] == [0, 1]
+        assert all(sum(n.indices) == 2 and n.lcm in (1, 2) for n in s.nodes)
+        assert s.branches == prod(n.branches for n in s.nodes)

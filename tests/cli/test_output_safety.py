@@ -70,3 +70,27 @@ def test_bad_destinations_refused_in_one_line(tmp_path, make):
     assert len(result.stderr.strip().splitlines()) == 1
     assert "Traceback" not in result.output
     assert sorted(p.name for p in tmp_path.iterdir()) == ["plain"]
+
+
+def test_a_link_to_this_process_pipe_is_written_through(tmp_path):
+    # like -o /dev/stdout: the link resolves to a magic /proc entry that no
+    # path lookup of its text finds, so only following it reaches the pipe
+    read_end, write_end = os.pipe()
+    link = tmp_path / "out"
+    link.symlink_to(f"/proc/{os.getpid()}/fd/{write_end}")
+    try:
+        result = run("-o", str(link))
+        os.close(write_end)
+        received = os.read(read_end, 1 << 20).decode()
+    finally:
+        os.close(read_end)
+    assert result.exit_code == 0, result.output
+    assert '"connected"' in received and link.is_symlink()
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["out"]
+
+
+def test_a_file_used_as_a_folder_is_named_as_such(tmp_path):
+    plain = tmp_path / "plain"
+    plain.write_text("x")
+    result = run("-o", str(plain / "out.json"))
+    assert result.exit_code == 2 and "is a file, not a folder" in result.stderr

@@ -10,6 +10,7 @@ import socket
 import sqlite3
 import subprocess
 import sys
+from fractions import Fraction
 
 import pytest
 
@@ -192,7 +193,9 @@ def test_failed_identity_is_loud_and_exits_1(tmp_path, store):
     with sqlite3.connect(store) as conn:
         landing = json.loads(conn.execute("SELECT landing FROM results WHERE position = 0").fetchone()[0])
         landing["other"] = "12345"
-        conn.execute("UPDATE results SET landing = ? WHERE position = 0", (json.dumps(landing),))
+        total = sum(Fraction(w) for w in landing.values())  # the row stays self-consistent
+        conn.execute("UPDATE results SET landing = ?, total_weight = ? WHERE position = 0",
+                     (json.dumps(landing), str(total)))
     conn.close()
     for args in (["export", "--store", str(store), "-f", "csv"],
                  ["sweep", "-g", "2", "-t", "1", "-d", "2", "--store", str(store), "-f", "csv", "-q"]):

@@ -23,13 +23,16 @@ def test_genus_two_series_is_dijkgraafs_form():
     found = s.identification
     assert found.found and found.solved_with == 3 and found.checked == 8
     assert sympy.simplify(found.expression - 2 * (10 * E2**3 - 6 * E2 * E4 - 4 * E6) / 103680) == 0
-    # OEIS A170991: 2, 16, 60, 160, 360, 672, 1240
+    # OEIS A170991: 2, 16, 60, 160, 360, 672, 1240 (terms typed from memory)
     assert [t.value for t in s.terms[1:8]] == [2, 16, 60, 160, 360, 672, 1240]
 
 
 def test_genus_three_series_is_the_kaneko_zagier_form():
     # M. Kaneko and D. Zagier, A generalized Jacobi theta function and
-    # quasimodular forms (1995); OEIS A170992 (2, 160, 2448, 18304, 90552):
+    # quasimodular forms (1995): the genus-3 series is quasimodular of weight 12.
+    # The form with the normalisation /1492992 (four labelled simple points) is
+    # the one given in the formula entry of OEIS A170992 (R. Visser, 2023; terms
+    # 2, 160, 2448, 18304, 90552 read from that entry):
     # (-6E2^6 + 15E2^4E4 + 4E2^3E6 - 12E2^2E4^2 - 12E2E4E6 + 7E4^3 + 4E6^2)/1492992.
     s = degree_series(Family(3, 1), Quantity("hurwitz"), max_degree=14, weight=12)
     found = s.identification

@@ -201,3 +201,70 @@ def test_unmarked_tail_next_to_a_marked_component():
     # g1 - g0{1} - g0: the unmarked tail goes, then g0{1} is a tail with a leg
     s = stabilise([1, 0, 0], [(0, 1), (1, 2)], [[], [1], []])
     assert s.genera == (1,) and s.legs == ((1,),) and s.leg_paths == ((0,),)
+
+
+def test_a_tail_written_first_still_moves_its_leg():
+    # the tail g0{1} is the first end of its edge: the leg lands on the genus-2 vertex
+    s = stabilise([2, 0], [(1, 0)], [[], [1]])
+    assert (s.genera, s.edges, s.legs, s.leg_paths) == ((2,), (), ((1,),), ((0,),))
+
+
+def test_a_leg_crossing_two_tails_in_turn_remembers_both():
+    # g0{1} - g0 - g2, numbered so that the marked end is contracted first
+    # (vertex 0), then the middle vertex is a tail carrying the leg: the marked
+    # point lands on the genus-2 vertex having crossed both nodes (worked by hand)
+    s = stabilise([0, 0, 2], [(0, 1), (1, 2)], [[1], [], []])
+    assert (s.genera, s.edges, s.legs, s.leg_paths) == ((2,), (), ((1,),), ((0, 1),))
+    # the same curve with the edges written backwards and listed the other way round
+    s = stabilise([0, 0, 2], [(2, 1), (1, 0)], [[1], [], []])
+    assert (s.genera, s.legs, s.leg_paths) == ((2,), ((1,),), ((0, 1),))
+
+
+def test_a_leg_behind_a_merged_chain_crosses_every_node_of_it():
+    # g2 - g0 - g0 - g0 - g0{1}: the three middle vertices are bridges (contracted
+    # first, being the least), the end is then a tail with one leg across the merged
+    # chain of four nodes (worked by hand: the point lands on the genus-2 curve)
+    genera = [0, 0, 0, 2, 0]
+    edges = [(3, 0), (1, 0), (2, 1), (4, 2)]
+    s = stabilise(genera, edges, [[], [], [], [], [1]])
+    assert (s.genera, s.edges, s.legs) == ((2,), (), ((1,),))
+    assert s.leg_paths == ((0, 1, 2, 3),)
+
+
+def test_two_legs_on_one_tail_behind_a_bridge():
+    # g1 - g0 - g0{1,2}: the bridge goes, the marked tail stays (three special points)
+    s = stabilise([1, 0, 0], [(0, 1), (1, 2)], [[], [], [1, 2]])
+    assert (s.genera, s.edges, s.chains, s.legs) == ((1, 0), ((0, 1),), ((0, 1),), ((), (1, 2)))
+    assert s.leg_paths == ((), ())
+
+
+def test_a_rational_vertex_with_a_loop_and_a_leg_is_stable():
+    # Mbar_{1,1}: the nodal rational curve with its marked point stays as it is
+    s = stabilise([0], [(0, 0)], [[1]])
+    assert (s.genera, s.edges, s.legs, s.leg_paths) == ((0,), ((0, 0),), ((1,),), ((),))
+
+
+# ------------------------------------------------------- smoothing orders along a branch
+
+def test_smoothing_orders_of_a_bridge_with_indices_two_and_three():
+    # Over a base node with local equation s_i^{e_i} = t (J. Harris and D. Mumford,
+    # On the Kodaira dimension of the moduli space of curves, Invent. Math. 67
+    # (1982), section 4) a branch is t = u^L with L = lcm(e_i) and s_i = u^{L/e_i};
+    # a rational bridge merging nodes of indices 3 and 2 (L = 6) is smoothed by
+    # s_1 s_2 = u^{2 + 3} (worked by hand)
+    from covertree.stabilisation.stabilise import smoothing_orders
+
+    assert smoothing_orders((0, 1), [0, 0], [3, 2], [6]) == (5,)
+    assert smoothing_orders((1,), [0, 0], [3, 2], [6]) == (3,)
+    assert smoothing_orders((), [0, 0], [3, 2], [6]) == (0,)
+
+
+def test_smoothing_orders_split_by_base_node():
+    # a chain through nodes over two base nodes q = 0 (indices 2, 1, L = 2) and
+    # q = 1 (index 3, L = 3): order 2/1 over q = 0 from node 1, 3/3 over q = 1
+    from covertree.stabilisation.stabilise import smoothing_orders
+
+    over, index, lcms = [0, 0, 1], [2, 1, 3], [2, 3]
+    assert smoothing_orders((1, 2), over, index, lcms) == (2, 1)
+    assert smoothing_orders((0, 1, 2), over, index, lcms) == (3, 1)
+    assert smoothing_orders((0,), over, index, lcms) == (1, 0)

@@ -39,9 +39,10 @@ def stored(path) -> int:
         conn.close()
 
 
-def interrupt(path, sig, after, *extra) -> int:
+def interrupt(path, sig, after, *extra) -> tuple[int, int, str]:
     """Start a sweep writing to ``path``, send ``sig`` once ``after`` tasks are
-    committed, and return how many tasks the store then holds."""
+    committed; return how many tasks the store then holds, the exit status
+    and stderr."""
     # a child of a background shell would inherit SIGINT ignored: restore it
     restore = (lambda: signal.signal(signal.SIGINT, signal.SIG_DFL)) if sig == signal.SIGINT else None
     child = spawn(*ARGS, "--store", str(path), *extra, preexec_fn=restore)
@@ -52,10 +53,10 @@ def interrupt(path, sig, after, *extra) -> int:
         time.sleep(0.01)
     child.send_signal(sig)
     started = time.monotonic()
-    child.communicate(timeout=60)
+    stderr = child.communicate(timeout=60)[1]
     assert child.returncode != 0
     assert time.monotonic() - started < 10  # stopped at once, not after the remaining tasks
-    return stored(path)
+    return stored(path), child.returncode, stderr
 
 
 def check_resumed(path, kept: int, reference: str, after: int) -> None:
@@ -72,13 +73,21 @@ def check_resumed(path, kept: int, reference: str, after: int) -> None:
 def test_ctrl_c_on_a_process_pool(tmp_path, reference):
     path = tmp_path / "results.sqlite"
     output = tmp_path / "out.json"
-    kept = interrupt(path, signal.SIGINT, AFTER_POOL, "-j", "2", "-o", str(output))
+    kept, status, stderr = interrupt(path, signal.SIGINT, AFTER_POOL, "-j", "2", "-o", str(output))
+    assert status == 130 and stderr.count("\n") == 1 and "safely in the store" in stderr
     assert not output.exists()  # no partial output file
-    assert [p.name for p in tmp_path.iterdir() if p.name.startswith(".covertree-")] == []
+    assert [p.name for p in tmp_path.iterdir() if ".covertree-" in p.name] == []
     check_resumed(path, kept, reference, AFTER_POOL)
 
 
 def test_killed_serial_run(tmp_path, reference):
     path = tmp_path / "results.sqlite"
-    kept = interrupt(path, signal.SIGKILL, AFTER_SERIAL)
+    kept = interrupt(path, signal.SIGKILL, AFTER_SERIAL)[0]
     check_resumed(path, kept, reference, AFTER_SERIAL)
+
+
+def test_terminated_process_pool_says_what_is_kept(tmp_path, reference):
+    path = tmp_path / "results.sqlite"
+    kept, status, stderr = interrupt(path, signal.SIGTERM, AFTER_POOL, "-j", "2")
+    assert status == 143 and stderr.count("\n") == 1 and f"of {TASKS} tasks are safely in the store" in stderr
+    check_resumed(path, kept, reference, AFTER_POOL)
