@@ -13,7 +13,7 @@ import sys
 import click
 
 from covertree import __version__
-from covertree.errors import CovertreeError, IdentityError, LimitError
+from covertree.errors import CovertreeError, IdentityError, InputError, LimitError
 
 
 def exit_status(error: CovertreeError) -> int:
@@ -67,14 +67,33 @@ def error_line(message: str) -> str:
 
 
 class CovertreeGroup(click.Group):
-    """A click group that turns library errors into one-line messages."""
+    """A click group that turns library errors, an unknown command and a bad
+    option of the group itself into one-line messages."""
+
+    def make_context(self, info_name, args, parent=None, **extra):
+        try:
+            return super().make_context(info_name, args, parent=parent, **extra)
+        except click.UsageError as error:
+            if type(error).__name__ == "NoArgsIsHelpError":  # bare ``covertree``: the help
+                raise
+            _refuse(InputError(error.format_message()))
+
+    def resolve_command(self, ctx: click.Context, args: list[str]):
+        try:
+            return super().resolve_command(ctx, args)
+        except click.UsageError as error:
+            raise InputError(f"{error.format_message()} Commands: {', '.join(self.list_commands(ctx))}") from None
 
     def invoke(self, ctx: click.Context):
         try:
             return super().invoke(ctx)
         except CovertreeError as error:
-            click.echo(f"covertree: error: {error_line(str(error))}", err=True)
-            sys.exit(exit_status(error))
+            _refuse(error)
+
+
+def _refuse(error: CovertreeError) -> None:
+    click.echo(f"covertree: error: {error_line(str(error))}", err=True)
+    sys.exit(exit_status(error))
 
 
 class LazyCommands(CovertreeGroup):

@@ -2,12 +2,12 @@
 
 from __future__ import annotations
 
-import json
 
 import click
 
 from covertree.cli.params import PICK, OneLineCommand, check_destination
 from covertree.errors import GraphError, InputError
+from covertree.export.schema import load_json
 from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 from covertree.graphs.notation import graph_parts, parse_graph
 from covertree.export.words import count_noun
@@ -16,7 +16,7 @@ from covertree.export.words import count_noun
 @click.command("draw", cls=OneLineCommand,
                short_help="Picture of a stable graph or of one cover of a catalogue.")
 @click.argument("notation", required=False)
-@click.option("--cover", "-c", "cover_file", type=click.File("r"), default=None,
+@click.option("--cover", "-c", "cover_file", type=click.File("rb"), default=None,
               help="Draw a cover from a JSON-lines catalogue (covertree catalogue -f jsonl); '-' reads stdin.")
 @click.option("--line", "-n", "line", type=click.IntRange(min=1), default=None,
               help="With --cover: which line of the file (default 1).")
@@ -51,8 +51,9 @@ def command(notation, cover_file, line, pick, output, dpi):
         base = StableCurveGraph.from_dict(record["base"])
         source = _graph(record["source"])
         profiles = record["edge_profiles"]
-    except (KeyError, TypeError) as error:
-        raise InputError(f"line {line} is not a cover of a JSON-lines catalogue (missing {error})") from None
+    except (KeyError, TypeError, ValueError, AttributeError) as error:
+        where = f"cover {pick[0]}:{pick[1]}" if pick is not None else f"line {line or 1}"
+        raise InputError(f"{where} is not a cover of a JSON-lines catalogue (missing or malformed {error})") from None
     indices = (record.get("local_structure") or {}).get("source_edge_indices")
     source_labels = [str(e) for e in indices] if indices else [""] * source.n_nodes
     base_labels = [",".join(map(str, p)) for p in profiles]
@@ -77,10 +78,7 @@ def _graph(data) -> CurveGraph:
 def _record(handle, line: int) -> dict:
     for number, text in enumerate(handle, start=1):
         if number == line:
-            try:
-                record = json.loads(text)
-            except json.JSONDecodeError as error:
-                raise InputError(f"line {line} of the cover file is not JSON: {error}") from None
+            record = load_json(text, f"line {line} of the cover file")
             if not isinstance(record, dict):
                 raise InputError(f"line {line} of the cover file is not a JSON object")
             return record
@@ -93,10 +91,7 @@ def _picked(handle, pick: tuple[int, int]) -> dict:
     stratum, cover = pick
     strata, covers = 0, 0
     for number, text in enumerate(handle, start=1):
-        try:
-            record = json.loads(text)
-        except json.JSONDecodeError as error:
-            raise InputError(f"line {number} of the cover file is not JSON: {error}") from None
+        record = load_json(text, f"line {number} of the cover file")
         if not isinstance(record, dict) or "stratum_number" not in record:
             raise InputError(f"line {number} of the cover file has no stratum_number: --pick needs the "
                              "output of covertree catalogue -f jsonl")

@@ -199,7 +199,7 @@ def vertex_pieces(degree: int, vertex_genus: int, leg_profiles: tuple[Profile, .
     found: list[tuple[int, ...]] = []
     plan.cover(0, -1, degree, max_genus, 0, [], found)
     kept = sorted(tuple(sorted(m)) for m in found
-                  if _balanced(candidates, m, loops) and all(candidates[i].hurwitz for i in m))
+                  if (plan.early or _balanced(candidates, m, loops)) and all(candidates[i].hurwitz for i in m))
     used = sorted({i for m in kept for i in m})
     index = {i: n for n, i in enumerate(used)}
     return tuple(candidates[i] for i in used), [tuple(index[i] for i in m) for m in kept]

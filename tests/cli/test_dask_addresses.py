@@ -5,6 +5,7 @@ connect timeout, and no traceback at exit (issue 14).  Only 127.0.0.1 is
 ever contacted."""
 
 import socket
+import subprocess
 import threading
 import time
 
@@ -13,8 +14,6 @@ import pytest
 from tests.sweep.helpers import COVERTREE, invoke
 
 pytest.importorskip("distributed")
-
-import subprocess  # noqa: E402
 
 SWEEP = ["sweep", "-g", "2", "-t", "1", "-d", "2", "-q", "--dask-timeout", "1"]
 

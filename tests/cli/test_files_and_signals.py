@@ -1,9 +1,14 @@
 """Output files against the store, drawings, temporary files and signals
 (issue 14, files; concurrency and signals)."""
 
+import multiprocessing
 import os
+import shutil
 import signal
 import stat
+import subprocess
+import sys
+import tempfile
 import threading
 import time
 
@@ -152,8 +157,6 @@ def as_nobody(task, *args):
     """Run ``task(*args)`` in a child process without the right to write
     anywhere but where everyone may (the nobody user when run as root);
     returns what it answered."""
-    import multiprocessing
-
     import covertree.cli.count  # noqa: F401  (loaded before privileges are dropped)
 
     def child(answers):
@@ -177,9 +180,6 @@ def count_into(path):
 
 
 def test_output_into_a_read_only_folder_refused_in_one_line():
-    import shutil
-    import tempfile
-
     folder = tempfile.mkdtemp()
     os.chmod(folder, 0o555)
     try:
@@ -192,9 +192,6 @@ def test_output_into_a_read_only_folder_refused_in_one_line():
 
 
 def test_leftover_of_a_killed_writer_is_recognised_and_cleaned(tmp_path):
-    import subprocess
-    import sys
-
     output = tmp_path / "covers.jsonl"
     child = subprocess.Popen([sys.executable, "-c", "from covertree.cli import main; main()", *SLOW,
                               "-o", str(output)], stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL)

@@ -59,3 +59,27 @@ def test_error_line_keeps_ordinary_messages_whole():
     message = "store '/home/someone/a rather long folder name/results.sqlite' does not exist"
     assert error_line(message) == message
     assert error_line("first\nsecond") == "first second"
+
+
+@pytest.mark.parametrize("data, words", [
+    (b"\xff\xfe{}", ["not UTF-8"]),
+    (b"[" * 100000, ["nested deeper"]),
+    (b"{not json", ["not JSON"]),
+    (b'{"base": 7, "source": [], "edge_profiles": "x"}', ["not a cover"]),
+    (b'{"base": {"vertices": "1/0"}, "source": {}, "edge_profiles": []}', ["not a cover"]),
+])
+def test_draw_refuses_hostile_cover_files(tmp_path, data, words):
+    cover, image = tmp_path / "covers.jsonl", tmp_path / "cover.svg"
+    cover.write_bytes(data)
+    one_line(invoke("draw", "--cover", str(cover), "-o", str(image)), "line 1", *words)
+    assert not image.exists()
+
+
+@pytest.mark.parametrize("args, words", [
+    (["nosuch"], ["No such command 'nosuch'", "Commands: catalogue"]),
+    (["--bogus"], ["No such option '--bogus'"]),
+    (["x" * 24000], ["No such command", "characters)"]),
+])
+def test_unknown_commands_and_group_options_in_one_line(args, words):
+    line = one_line(invoke(*args), *words)
+    assert len(line) < LINE_WIDTH + 40

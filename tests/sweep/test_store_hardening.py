@@ -163,6 +163,31 @@ def test_many_simultaneous_first_opens_of_a_new_store():
     assert failures == []
 
 
+def sweep_together(path, barrier, answers) -> None:
+    barrier.wait()
+    result = invoke(*SWEEP, "--store", path)
+    answers.put((result.exit_code, result.stderr))
+
+
+def test_sweeps_starting_together_on_a_new_store():
+    import covertree.cli.sweep  # noqa: F401  (loaded once, before the children fork)
+
+    context = multiprocessing.get_context("fork")
+    outcomes = []
+    for _ in range(4):
+        folder = tempfile.mkdtemp()
+        path = os.path.join(folder, "new.sqlite")
+        barrier, answers = context.Barrier(8), context.Queue()
+        children = [context.Process(target=sweep_together, args=(path, barrier, answers)) for _ in range(8)]
+        for child in children:
+            child.start()
+        outcomes += [answers.get(timeout=120) for _ in children]
+        for child in children:
+            child.join(30)
+        shutil.rmtree(folder)
+    assert outcomes == [(0, "")] * 32
+
+
 def read_only_export(folder: str, store: str, answers) -> None:
     """Export ``store`` as a user who cannot write ``folder`` (the nobody
     user when run as root), answering (exit code, stdout, stderr)."""
