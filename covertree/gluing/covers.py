@@ -16,31 +16,42 @@ matchings, ``Aut(f)`` the stabilisers.  Edges are taken in a fixed order; over
 each edge the ports of one side (the *left* side) are matched in a fixed order
 ``x_1, x_2, ...`` to ports of the other side (the *candidates*, in a fixed
 order).  A matching ``M`` is thus a word ``M(x_1) M(x_2) ...`` and the words
-of an orbit have a lexicographic least one, ``M_0``.  A port is *pristine*
-when no port of its piece occurs in the word so far.  Three rules prune the
-search; each says that some ``g`` in ``G`` fixing the prefix ``x_1..x_{s-1}``
-and its images letter by letter would give a smaller letter at ``x_s``, so
-``M_0`` obeys all three at once and every orbit is still reached:
+of an orbit have a lexicographic least one, ``M_0``; ``gM`` is the matching
+``{g(a), g(b)}`` for ``{a, b}`` in ``M``, so ``(gM)(x) = g(M(g^-1 x))``.  A
+piece is *used* by the ports of it already in the word (as left ports or
+letters); a component of the matching of the earlier edges is *idle* while
+none of its ports is used over the current edge.  Each rule below names some
+``g`` in ``G`` with ``(gM)(x_i) = M(x_i)`` for ``i < s`` (the prefix is kept)
+and says that ``(gM)(x_s)`` would come before ``M(x_s)``; so ``M_0`` obeys all
+of them at once, every orbit is still reached, and the rules are compatible
+with one another because they test the same least word:
 
-1. *(candidate twins)* ``x_s`` is not matched into a pristine piece ``q`` while
-   an earlier pristine twin ``i`` of ``q`` (other than the piece of ``x_s``)
-   exists: swapping ``i`` and ``q`` fixes the prefix and ``x_s`` and moves the
-   letter to the same port of ``i``, which comes first.
-2. *(candidate deck)* a port of a pristine piece ``q`` (not that of ``x_s``)
-   is a candidate only if it is least in its orbit under the deck group of
-   ``q``: a deck transformation of ``q`` moving it to a lesser port fixes the
-   prefix and ``x_s``.
-3. *(left orbits)* over an edge joining two distinct vertices, when ``x_s`` is
-   the first port of a pristine piece ``L``, the ports ``y`` of ``L`` and of
-   its pristine twins in the orbit of ``x_s`` (deck transformations of the
-   twins, the twins permuted) must receive later letters than ``x_s``: for
-   ``g`` with ``g(y) = x_s``, ``g`` fixes the prefix and every candidate
-   (they lie over the other vertex), and ``gM`` has the letter ``M(y)`` at
-   ``x_s``; so ``M_0(x_s) < M_0(y)``.
+1. *(candidate copies)* ``x_s`` is not matched to a port ``c`` of an idle
+   component ``K'`` when an idle copy ``K`` of it (same pieces over the same
+   vertices, matched alike; the component of ``x_s`` neither) takes the piece
+   of ``c`` to an earlier piece: ``g`` swaps ``K`` and ``K'``, keeps the
+   earlier edges, ``x_s`` and the prefix of this edge (idle), and
+   ``(gM)(x_s) = g(c)`` comes first.  Pristine twin pieces are the simplest
+   copies.
+2. *(candidate deck)* ``c`` on piece ``q`` is refused if a deck
+   transformation ``g`` of ``q`` fixing every used port of ``q`` (and
+   ``x_s``, when it is on ``q``) takes ``c`` to a lesser port of ``q``: ``g``
+   keeps the prefix and ``x_s``, and ``(gM)(x_s) = g(c)``.
+3. *(left deck)* for a deck transformation ``g`` of the piece ``L`` of
+   ``x_s`` fixing the used ports of ``L``, with ``y = g(x_s) != x_s``:
+   ``g^-1`` keeps the prefix and ``(g^-1 M)(x_s) = g^-1(M(y))``, so
+   ``M_0(x_s) <= g^-1(M_0(y))``.  Over an edge between distinct vertices
+   ``g`` does not move candidates and this reads ``M(y)`` after ``M(x_s)``;
+   the same holds for the ports of the pristine twins of a pristine ``L``
+   answering to the orbit of ``x_s``.
+4. *(left copies)* when ``x_s`` is the first port of an idle component ``K``
+   and ``K'`` is an idle copy, ``y`` the port of ``K'`` answering to
+   ``x_s``, ``g`` the swap: ``(gM)(x_s) = g(M(y))``, so ``M_0(x_s) <=
+   g(M_0(y))``, tested when ``y`` is matched.
 
-The rules are necessary conditions for the same least word, so they are
-compatible; together they leave few repeats (a symmetry of a partial matching
-that moves matched pieces is not used), and those are dropped by their
+Together the rules leave few repeats (a symmetry of the partial matching not
+of these forms, for example a swap of twins combined with a deck
+transformation of a used piece, is not used), and those are dropped by their
 canonical code (:mod:`covertree.gluing.structure`), counted in
 :class:`GluingStats`.
 
@@ -68,14 +79,15 @@ Fraction(2, 1)
 from __future__ import annotations
 
 from collections import Counter
-from collections.abc import Iterator, Sequence
+from collections.abc import Callable, Iterator, Sequence
 from dataclasses import dataclass, replace
 from fractions import Fraction
-from functools import lru_cache
+from functools import lru_cache, partial
 from math import factorial, prod
 
-from covertree.errors import IdentityError
+from covertree.errors import IdentityError, ProblemError
 from covertree.graphs.curve_graph import CurveGraph
+from covertree.hurwitz.problem import source_genus
 from covertree.gluing.structure import Glued, Port, canonical_code, piece_cycles
 from covertree.monodromy.local import LocalCover, local_covers, special_points
 from covertree.monodromy.pieces import Piece
@@ -135,8 +147,8 @@ class GluingStats:
 
 
 @lru_cache(maxsize=256)
-def _local_covers(degree: int, genus: int, profiles: tuple) -> tuple[LocalCover, ...]:
-    return tuple(local_covers(degree, genus, profiles))
+def _local_covers(degree: int, genus: int, profiles: tuple, max_genus: int) -> tuple[LocalCover, ...]:
+    return tuple(local_covers(degree, genus, profiles, max_genus))
 
 
 def glued_covers(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]],
@@ -171,8 +183,16 @@ def balanced_choices(base: CurveGraph, degree: int, profiles: Sequence[Sequence[
 
     Vertices are visited in :func:`_vertex_order`; at each, the profiles at
     the half-edges to vertices already chosen are prescribed like those of
-    legs, so only local covers that balance are ever built."""
+    legs, so only local covers that balance are ever built.  A connected
+    source of genus ``g`` has ``g = sum g_c + b_1 >= sum g_c`` over its
+    components, so choices whose pieces' genera add up to more than ``g``
+    (all of whose matchings are disconnected) are skipped."""
     specs = special_points(base)
+    try:
+        genus = source_genus(degree, base.genus, [tuple(p) for p in profiles])
+    except ProblemError:
+        return  # Riemann-Hurwitz has no connected source: no cover
+
     order = _vertex_order(base, specs)
     done = {v: n for n, v in enumerate(order)}
     links = _links(base, specs, done)
@@ -184,20 +204,21 @@ def balanced_choices(base: CurveGraph, degree: int, profiles: Sequence[Sequence[
         given = {p: chosen[a].profiles[pa] for p, a, pa in links[v]}
         prof = tuple(tuple(profiles[sp[1] - 1]) if sp[0] == "leg" else given.get(p)
                      for p, sp in enumerate(specs[v]))
-        return [c for c in _local_covers(degree, base.vertex_genera[v], prof)
+        return [c for c in _local_covers(degree, base.vertex_genera[v], prof, genus)
                 if all(c.profiles[x] == c.profiles[y] for x, y in loops[v])]
 
-    def rec(n: int) -> Iterator[list[LocalCover]]:
+    def rec(n: int, budget: int) -> Iterator[list[LocalCover]]:
         if n == len(order):
             yield list(chosen)
             return
         v = order[n]
         for cover in options(v):
-            chosen[v] = cover
-            yield from rec(n + 1)
+            if cover.genus <= budget:
+                chosen[v] = cover
+                yield from rec(n + 1, budget - cover.genus)
         chosen[v] = None
 
-    yield from rec(0)
+    yield from rec(0, genus)
 
 
 def _vertex_order(base: CurveGraph, specs: list) -> list[int]:
@@ -359,15 +380,16 @@ class _Matcher:
         port, length = left_port
         copies = self.copies[-1]
         orbit = [] if self.touched[port[0]] else list(self.orbits[e][t])
+        moves = [act for act in self._moves(port[0]) if act[port[1:]] != port[2]]
         if not self.loop[e]:
-            orbit += [(port[0], port[1], act[port[1:]]) for act in self._moves(port[0])
-                      if act[port[1:]] != port[2]]
+            orbit += [(port[0], port[1], act[port[1:]]) for act in moves]
+            moves = []
         for rank in range(self.floor.get(port, -1) + 1, len(right)):
             cand, clen = right[rank]
             if clen != length or cand in self.used or not self._allowed(port, cand) \
                     or not copies.allowed(port, cand):
                 continue
-            pending = copies.register(port, rank)
+            pending = copies.register(port, rank) + copies.register_turns(port, rank, moves)
             self._pair(port, cand, +1)
             raised = self._raise(orbit, rank)
             yield from self._match(e, t + 1)
@@ -459,7 +481,7 @@ class _Copies:
                             self.images[q].append((a[0], swap))
         self.n_busy = [0] * len(m.pieces)
         self.rank = {cand: r for r, (cand, _length) in enumerate(right)}
-        self.pending: dict[Port, list[tuple[int, dict[int, int]]]] = {}
+        self.pending: dict[Port, list[tuple[int, Callable[[Port], Port]]]] = {}
 
     def busy(self, a: int, b: int, step: int) -> None:
         self.n_busy[self.comp[a]] += step
@@ -474,8 +496,8 @@ class _Copies:
             for other, swap in self.images[q]:
                 if swap[q] < q and not self.n_busy[other] and own != other and own != self.comp[q]:
                     return False
-        for bound, swap in self.pending.get(port, ()):
-            if self.rank[(swap.get(q, q), cand[1], cand[2])] < bound:
+        for bound, image in self.pending.get(port, ()):
+            if self.rank[image(cand)] < bound:
                 return False
         return True
 
@@ -490,13 +512,37 @@ class _Copies:
         for other, swap in self.images[owner]:
             if not self.n_busy[other]:
                 y = (swap[owner], port[1], port[2])
-                self.pending.setdefault(y, []).append((rank, swap))
+                self.pending.setdefault(y, []).append((rank, partial(_swapped, swap)))
                 ports.append(y)
+        return ports
+
+    def register_turns(self, port: Port, rank: int, moves: list[dict[tuple[int, int], int]]) -> list[Port]:
+        """Rule 3 over a loop: for each deck action ``g`` of the owner fixing
+        its used ports and moving ``port`` to ``y``, the candidate of ``y``
+        moved back by ``g`` must not come before the candidate of ``rank``
+        (``g`` moves candidates on the owner too, so this is a bound on their
+        images, not on the candidates)."""
+        ports = []
+        for act in moves:
+            y = (port[0], port[1], act[port[1:]])
+            back = {(p, c2): c for (p, c), c2 in act.items()}
+            self.pending.setdefault(y, []).append((rank, partial(_turned, port[0], back)))
+            ports.append(y)
         return ports
 
     def unregister(self, ports: list[Port]) -> None:
         for y in ports:
             self.pending[y].pop()
+
+
+def _swapped(swap: dict[int, int], port: Port) -> Port:
+    """``port`` moved by a swap of pieces."""
+    return (swap.get(port[0], port[0]), port[1], port[2])
+
+
+def _turned(piece: int, act: dict[tuple[int, int], int], port: Port) -> Port:
+    """``port`` moved by a deck action of ``piece``."""
+    return (piece, port[1], act[port[1:]]) if port[0] == piece else port
 
 
 def _component(m: _Matcher, start: int) -> tuple[list[int], tuple]:

@@ -115,7 +115,7 @@ def _start_pieces(glued: Glued) -> list[int]:
     return classes[gens]
 
 
-@lru_cache(maxsize=65536)
+@lru_cache(maxsize=4096)
 def _view(piece: Piece, halves: tuple[int, ...], entry: int) -> tuple[tuple, dict, tuple]:
     """Piece ``piece`` labelled breadth-first from ``entry`` (all gens):
     ``(head, least, scan)`` with ``head`` the degree and relabelled
@@ -141,7 +141,7 @@ def _view(piece: Piece, halves: tuple[int, ...], entry: int) -> tuple[tuple, dic
     return head, least, tuple(scan)
 
 
-@lru_cache(maxsize=65536)
+@lru_cache(maxsize=4096)
 def _least_label(piece: Piece, entry: int, p: int, c: int) -> int:
     """The least breadth-first label (from ``entry``) on cycle ``c`` of ``s_p``."""
     order = [entry]

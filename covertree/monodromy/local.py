@@ -28,7 +28,7 @@ from __future__ import annotations
 from collections import Counter
 from collections.abc import Sequence
 from dataclasses import dataclass
-from functools import cached_property
+from functools import cached_property, lru_cache
 
 from covertree.graphs.curve_graph import CurveGraph
 from covertree.monodromy.pieces import Piece, connected_pieces
@@ -60,8 +60,14 @@ class LocalCover:
             for s in range(n)
         )
 
+    @cached_property
+    def genus(self) -> int:
+        """Sum of the genera of the pieces."""
+        return sum(p.genus for p in self.pieces)
 
-def local_covers(degree: int, genus: int, profiles: Sequence[Sequence[int] | None]) -> list[LocalCover]:
+
+def local_covers(degree: int, genus: int, profiles: Sequence[Sequence[int] | None],
+                 max_genus: int | None = None) -> list[LocalCover]:
     """Every local cover of the given degree over a component of genus ``genus``.
 
     Parameters
@@ -69,29 +75,60 @@ def local_covers(degree: int, genus: int, profiles: Sequence[Sequence[int] | Non
     profiles : sequence
         Per special point: the prescribed profile (a leg) or ``None`` (a
         half-edge, any type).
+    max_genus : int, optional
+        Keep only local covers whose pieces' genera add up to at most this (a
+        connected source of genus ``g`` has ``sum g_c <= g``).
+
+    Triple covers of an elliptic curve with two simple points: the 16
+    connected ones have genus 2, the other 4 a double cover of genus 2 and an
+    unramified sheet of genus 1:
+
+    >>> len(local_covers(3, 1, [(2, 1), (2, 1)])), len(local_covers(3, 1, [(2, 1), (2, 1)], max_genus=2))
+    (20, 16)
     """
     allowed = [None if p is None else dict(Counter(p)) for p in profiles]
-    pieces = [pc for k in range(1, degree + 1) for pc in connected_pieces(k, genus, allowed)]
+    pieces = [pc for k in range(1, degree + 1) for pc in _pieces(k, genus, _allowance_key(k, allowed))
+              if max_genus is None or pc.genus <= max_genus]
     need = [None if p is None else Counter(p) for p in profiles]
     out: list[LocalCover] = []
-    _multisets(pieces, 0, degree, need, [], out)
+    bound = degree * max((pc.genus for pc in pieces), default=0) if max_genus is None else max_genus
+    _multisets(pieces, 0, (degree, bound), need, [], out)
     return out
 
 
-def _multisets(pieces: list[Piece], start: int, left: int, need: list, acc: list, out: list) -> None:
-    """Non-decreasing choices of pieces with total degree ``left`` whose leg types
-    exhaust ``need`` (``pieces`` sorted by non-decreasing degree)."""
-    if left == 0:
+def _allowance_key(k: int, allowed: list) -> tuple:
+    """The allowances as they bear on pieces of degree ``k`` (counts capped at
+    what ``k`` sheets can hold), hashable: equal keys, equal pieces.
+
+    >>> _allowance_key(2, [{2: 1, 1: 5}, None])
+    (((1, 2), (2, 1)), None)
+    """
+    return tuple(None if a is None else tuple(sorted((n, min(m, k // n)) for n, m in a.items() if n <= k))
+                 for a in allowed)
+
+
+@lru_cache(maxsize=4096)
+def _pieces(k: int, genus: int, key: tuple) -> tuple[Piece, ...]:
+    """:func:`connected_pieces` for an allowance key, shared by the local
+    covers of every degree and prescription."""
+    return tuple(connected_pieces(k, genus, [None if a is None else dict(a) for a in key]))
+
+
+def _multisets(pieces: list[Piece], start: int, left: tuple[int, int], need: list, acc: list, out: list) -> None:
+    """Non-decreasing choices of pieces with total degree ``left[0]`` and
+    total genus at most ``left[1]`` whose leg types exhaust ``need``
+    (``pieces`` sorted by non-decreasing degree)."""
+    if left[0] == 0:
         out.append(LocalCover(tuple(acc)))
         return
     for idx in range(start, len(pieces)):
         piece = pieces[idx]
-        if piece.degree > left:
+        if piece.degree > left[0]:
             break  # pieces come in non-decreasing degree
-        if not _take(piece, need):
+        if piece.genus > left[1] or not _take(piece, need):
             continue
         acc.append(piece)
-        _multisets(pieces, idx, left - piece.degree, need, acc, out)
+        _multisets(pieces, idx, (left[0] - piece.degree, left[1] - piece.genus), need, acc, out)
         acc.pop()
         _give_back(piece, need)
 

@@ -90,7 +90,12 @@ class Piece:
 
     def profile(self, p: int) -> tuple[int, ...]:
         """Cycle type of ``s_p``."""
-        return cycle_type(self.special(p))
+        return self.profiles[p]
+
+    @cached_property
+    def profiles(self) -> tuple[tuple[int, ...], ...]:
+        """Cycle type of every ``s_p``, computed once."""
+        return tuple(cycle_type(self.special(p)) for p in range(self.n_special))
 
     @cached_property
     def genus(self) -> int:

@@ -114,8 +114,9 @@ def test_leftovers_of_a_killed_writer_are_removed_by_the_next_run(tmp_path):
     assert remove_leftovers(str(tmp_path)) == []
 
 
-# A catalogue written as JSON lines as it is found, long enough to be interrupted.
-SLOW = ["catalogue", "-g", "2", "-t", "0", "-d", "4", "-k", "2", "-f", "jsonl", "--max-covers", "10000000"]
+# A catalogue written as JSON lines as it is found, long enough to be interrupted
+# (no cover limit: with the default one a fast engine could stop first).
+SLOW = ["catalogue", "-g", "2", "-t", "0", "-d", "4", "-k", "2", "-f", "jsonl", "-m", str(10**9)]
 
 
 def temporaries(folder):
