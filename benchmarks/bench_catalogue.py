@@ -6,16 +6,13 @@
    (R. Dijkgraaf, Mirror symmetry and elliptic curves, 1995; OEIS A170991).
 2. The engine against the brute-force oracle (tests/oracle/brute_covers.py) at
    D = 4 and 5 on the same (labelled) strata: seconds of each and the speed-up.
-3. Peak memory (ru_maxrss of a child process) of ``covertree catalogue ... -f
-   jsonl`` at D = 5 and 6, to show that streaming keeps it flat.
+The peak memory of the ``-f jsonl`` stream is measured in bench_gluing.py
+(the child's own peak, at D = 6..9).
 """
 
 from __future__ import annotations
 
-import os
 import pathlib
-import resource
-import subprocess
 import sys
 import time
 from fractions import Fraction
@@ -71,40 +68,9 @@ def bench_oracle(degrees) -> None:
               f"{n_engine} vs {n_oracle}{'' if n_engine == n_oracle else ' MISMATCH'}", flush=True)
 
 
-_CHILD = """
-import resource, sys
-from covertree.cli import main
-try:
-    main(sys.argv[1:])
-except SystemExit as exit:
-    code = exit.code
-else:
-    code = 0
-sys.stderr.write("MAXRSS %d\\n" % resource.getrusage(resource.RUSAGE_SELF).ru_maxrss)
-sys.exit(code)
-"""
-
-
-def bench_memory(degrees) -> None:
-    for d in degrees:
-        args = ["catalogue", "-g", "2", "-t", "1", "-d", str(d), "-k", "2", "-f", "jsonl", "-m", str(10**9)]
-        start = time.perf_counter()
-        proc = subprocess.run([sys.executable, "-c", _CHILD, *args], capture_output=True, text=True,
-                              cwd=ROOT, env={**os.environ, "PYTHONPATH": str(ROOT)})
-        seconds = time.perf_counter() - start
-        rss = [int(line.split()[1]) for line in proc.stderr.splitlines() if line.startswith("MAXRSS")]
-        lines = proc.stdout.count("\n")
-        peak = f"{rss[0] / 1024:.1f} MiB" if rss else "unknown"
-        print(f"covertree catalogue -d {d} -k 2 -f jsonl: exit {proc.returncode}, {lines} lines, "
-              f"peak RSS {peak} (ru_maxrss), {seconds:.2f} s", flush=True)
-    children = resource.getrusage(resource.RUSAGE_CHILDREN).ru_maxrss
-    print(f"largest child ru_maxrss: {children / 1024:.1f} MiB", flush=True)
-
-
 def main() -> int:
     bench_catalogue(range(2, 8))
     bench_oracle([4, 5])
-    bench_memory([5, 6])
     return 0
 
 
