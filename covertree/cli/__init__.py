@@ -34,6 +34,23 @@ _COMMANDS = {
     "export": "sweep", "series": "series",
 }
 
+#: command name -> its one-line help, as the command declares it (``short_help``);
+#: ``covertree --help`` lists the commands from here without importing them
+#: (a test checks that each entry equals the loaded command's)
+_SHORT_HELP = {
+    "catalogue": "Every admissible cover over each boundary stratum, checked.",
+    "count": "Hurwitz numbers (connected and not) of a problem.",
+    "draw": "Picture of a stable graph or of one cover of a catalogue.",
+    "export": "Print every result in a store, nothing recomputed.",
+    "integral": "Integral over the space of admissible covers.",
+    "locus": "Class of the Hurwitz locus in Mbar_g (lambda, delta_j).",
+    "merge": "Combine the JSON outputs of shards into one.",
+    "pullback": "Pullback of each boundary divisor to the cover space.",
+    "series": "Generating series in the degree, as quasimodular forms.",
+    "strata": "Stable graphs (boundary strata) of Mbar_{h,n}.",
+    "sweep": "Run many problems into a resumable store.",
+}
+
 
 #: Quotations of the user's input longer than this (characters) are cut ...
 QUOTE_LIMIT = 240
@@ -106,6 +123,16 @@ class LazyCommands(CovertreeGroup):
         if name not in self.commands and name in _COMMANDS:
             _load(self, _COMMANDS[name])
         return self.commands.get(name)
+
+    def format_commands(self, ctx: click.Context, formatter: click.HelpFormatter) -> None:
+        """The list of commands, as click draws it, without importing the
+        modules of the commands not yet loaded (their help from ``_SHORT_HELP``)."""
+        rows = [(name, self.commands[name].get_short_help_str() if name in self.commands
+                 else _SHORT_HELP[name]) for name in self.list_commands(ctx)
+                if name not in self.commands or not self.commands[name].hidden]
+        if rows:
+            with formatter.section("Commands"):
+                formatter.write_dl(rows)
 
 
 def _load(group: click.Group, module_name: str) -> None:

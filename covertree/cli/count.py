@@ -6,6 +6,7 @@ import io
 
 import click
 
+from covertree.cli.boxes import plain_table
 from covertree.cli.limits import deadline, max_work_option, on_terminal, time_limit_option
 from covertree.cli.params import PROFILE, OneLineCommand, emit, format_option, output_option
 from covertree.export.counts import COUNT_COLUMNS, count_row, counts_csv, counts_json, counts_latex
@@ -52,16 +53,24 @@ def command(genus, target_genus, degree, profiles, max_work, time_limit, fmt, ou
 
 
 def _table(problem, connected, disconnected) -> str:
-    # rich only for the table format (a fast start for the other formats)
-    from rich.console import Console
-    from rich.table import Table
-    table = Table(title="Hurwitz numbers (labelled branch points, weight 1/|Aut|)")
-    for name in COUNT_COLUMNS:
-        table.add_column(name.replace("_", " "), justify="left" if name == "profiles" else "right")
+    title = "Hurwitz numbers (labelled branch points, weight 1/|Aut|)"
+    columns = [(name.replace("_", " "), "left" if name == "profiles" else "right")
+               for name in COUNT_COLUMNS]
     row = list(count_row(problem, connected, disconnected))
     row[COUNT_COLUMNS.index("profiles")] = profiles_text(problem.profiles)
-    table.add_row(*map(str, row))
+    cells = [str(cell) for cell in row]
+    width = max(80, 60 + sum(map(len, cells)))
+    return plain_table(title, columns, [cells], width) or _rich_table(title, columns, cells, width)
+
+
+def _rich_table(title: str, columns, cells: list[str], width: int) -> str:
+    # the terminal library only where the plain drawing declines (a fast start)
+    from rich.console import Console
+    from rich.table import Table
+    table = Table(title=title)
+    for header, justify in columns:
+        table.add_column(header, justify=justify)
+    table.add_row(*cells)
     buffer = io.StringIO()
-    width = max(80, 60 + sum(len(str(cell)) for cell in row))
     Console(file=buffer, width=width, color_system=None).print(table)
     return buffer.getvalue()

@@ -19,6 +19,7 @@ from contextlib import contextmanager, nullcontext
 
 import click
 
+from covertree.cli.params import Seconds
 from covertree.errors import LimitError
 from covertree.limits import DEFAULT_MAX_WORK, BYTES_PER_STEP, parse_natural
 
@@ -58,7 +59,7 @@ def _seconds(ctx, param, value):
 
 
 time_limit_option = click.option(
-    "--time-limit", "time_limit", type=click.FloatRange(min=0, max=10**7), default=None, metavar="SECONDS",
+    "--time-limit", "time_limit", type=Seconds(min=0, max=10**7), default=None, metavar="SECONDS",
     callback=_seconds,
     help="Stop (exit 3, no output file written) when the run is still going after SECONDS, "
          "whether or not it has found anything  [default: no limit].")

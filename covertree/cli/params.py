@@ -98,6 +98,19 @@ class IntRangeList(click.ParamType):
         return sorted(out)
 
 
+class Seconds(click.FloatRange):
+    """A number of seconds in a range; unlike click's float range, refuses NaN
+    (which compares false with both bounds and so passes the range check)."""
+
+    name = "seconds"
+
+    def convert(self, value, param, ctx):
+        number = super().convert(value, param, ctx)
+        if number != number:
+            self.fail(f"{value!r} is not a number of seconds", param, ctx)
+        return number
+
+
 class OneLineCommand(click.Command):
     """Report a bad option value (malformed profile, non-integer, missing
     option) as one line on stderr with exit status 2, like the library's input

@@ -6,6 +6,7 @@ import io
 
 import click
 
+from covertree.cli.boxes import plain_table
 from covertree.cli.limits import deadline, max_work_option, on_terminal, time_limit_option
 from covertree.cli.params import OneLineCommand, emit, format_option, output_option
 from covertree.export.graphs import strata_csv, strata_json, strata_latex, strata_rows
@@ -68,18 +69,25 @@ def command(genus: int, points: int, codim: int | None, standalone: bool, max_wo
 
 
 def _table(genus: int, points: int, codim: int | None, graphs) -> str:
-    # rich only for the table format (a fast start for the other formats)
+    limit = "" if codim is None or codim >= 3 * genus - 3 + points else f" of codim <= {codim}"
+    title = f"Strata of Mbar_{{{genus},{points}}}{limit}: {len(graphs)}"
+    columns = [(name, "right") for name in ("#", "codim", "|V|", "|Aut|")] + [("graph", "left")]
+    rows = [[str(cell) for cell in row] for row in strata_rows(graphs)]
+    width = max(80, 40 + max(len(g.notation) for g in graphs))
+    return plain_table(title, columns, rows, width) or _rich_table(title, columns, rows, width)
+
+
+def _rich_table(title: str, columns, rows: list[list[str]], width: int) -> str:
+    # the terminal library only where the plain drawing declines (a fast start);
+    # cells as Text, so that braces and brackets of the notation are not markup
     from rich.console import Console
     from rich.table import Table
     from rich.text import Text
-    limit = "" if codim is None or codim >= 3 * genus - 3 + points else f" of codim <= {codim}"
-    table = Table(title=f"Strata of Mbar_{{{genus},{points}}}{limit}: {len(graphs)}")
-    for name in ("#", "codim", "|V|", "|Aut|"):
-        table.add_column(name, justify="right")
-    table.add_column("graph", justify="left")
-    for row in strata_rows(graphs):
-        table.add_row(*(Text(str(cell)) for cell in row))
+    table = Table(title=title)
+    for header, justify in columns:
+        table.add_column(header, justify=justify)
+    for row in rows:
+        table.add_row(*map(Text, row))
     buffer = io.StringIO()
-    width = max(80, 40 + max(len(g.notation) for g in graphs))
     Console(file=buffer, width=width, color_system=None).print(table)
     return buffer.getvalue()

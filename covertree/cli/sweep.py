@@ -16,7 +16,7 @@ from rich.text import Text
 
 from covertree.cli.interrupts import interrupted_status
 from covertree.cli.limits import max_work_option
-from covertree.cli.params import INT_RANGE, PROFILE, OneLineCommand, emit, format_option, output_option, \
+from covertree.cli.params import INT_RANGE, PROFILE, OneLineCommand, Seconds, emit, format_option, output_option, \
     refuse_output_onto_store
 from covertree.cli.render import fitted_table, table_text
 from covertree.errors import InputError
@@ -154,7 +154,7 @@ def interrupted_message(total: int, finished: int, from_store: int, store: str |
 @click.option("--shard", "shard", default=None, help="Run only slice I of N (tasks with index % N == I-1).")
 @click.option("--dask", "dask", default=None, metavar="ADDRESS",
               help="Submit the tasks to this dask.distributed scheduler (extra covertree[dask]).")
-@click.option("--dask-timeout", "dask_timeout", type=click.FloatRange(min=0.1, max=600), default=None,
+@click.option("--dask-timeout", "dask_timeout", type=Seconds(min=0.1, max=600), default=None,
               metavar="SECONDS",
               help="With --dask: give up when the scheduler has not answered within this time (default 5).")
 @click.option("--store", "store", type=click.Path(dir_okay=False), default=None,

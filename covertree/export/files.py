@@ -28,9 +28,7 @@ from __future__ import annotations
 
 import os
 import re
-import socket
 import stat
-import tempfile
 from collections.abc import Iterator
 from contextlib import contextmanager
 from typing import IO
@@ -44,6 +42,8 @@ _LEFTOVER = re.compile(r"^\..+\.covertree-partial-([A-Za-z0-9_]+)-(\d+)-[a-z0-9_
 
 def _host() -> str:
     """This machine's name as it appears in temporary file names."""
+    import socket  # imported when a file is written, not at start-up
+
     return re.sub(r"[^A-Za-z0-9]", "_", socket.gethostname())[:40] or "host"
 
 
@@ -177,6 +177,8 @@ def atomic_output(output: str, binary: bool = False) -> Iterator[IO]:
     target = os.path.realpath(output)
     directory, name = os.path.split(target)
     remove_leftovers(directory)
+    import tempfile  # imported when a file is written, not at start-up
+
     fd, tmp = tempfile.mkstemp(dir=directory, prefix=partial_prefix(name))
     try:
         with os.fdopen(fd, mode, encoding=encoding) as handle:

@@ -108,7 +108,7 @@ def test_malformed_addresses_refused_with_a_short_quote(address):
     assert len(result.stderr) < 300
 
 
-@pytest.mark.parametrize("value", ["0", "-1", "soon", "1e9"])
+@pytest.mark.parametrize("value", ["0", "-1", "soon", "1e9", "nan", "NaN", "inf"])
 def test_bad_timeouts_refused(value):
     result = invoke("sweep", "-g", "2", "-t", "1", "-d", "2", "--dask", "tcp://127.0.0.1:1", "--dask-timeout", value)
     assert result.exit_code == 2 and result.stderr.count("\n") == 1 and "--dask-timeout" in result.stderr

@@ -68,6 +68,13 @@ def test_bad_work_limit_refused(value):
     assert "--max-work" in line
 
 
+@pytest.mark.parametrize("value", ["0", "-1", "nan", "NAN", "inf", "1e400", "x"])
+def test_bad_time_limit_refused(value):
+    # NaN passed click's range check and reached the timer (a traceback) before
+    line = refusal(run("count", "-t", "1", "-g", "2", "-d", "3", "--time-limit", value))
+    assert "--time-limit" in line or "time limit" in line.lower()
+
+
 def test_time_limit_stops_a_long_count():
     line = refusal(run("count", "-t", "1", "-g", "2", "-d", "400", "--max-work", "0", "--time-limit", "0.3"), 3)
     assert "time limit of 0.3 s" in line
