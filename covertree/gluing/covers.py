@@ -49,11 +49,30 @@ with one another because they test the same least word:
    ``x_s``, ``g`` the swap: ``(gM)(x_s) = g(M(y))``, so ``M_0(x_s) <=
    g(M_0(y))``, tested when ``y`` is matched.
 
-Together the rules leave few repeats (a symmetry of the partial matching not
-of these forms, for example a swap of twins combined with a deck
-transformation of a used piece, is not used), and those are dropped by their
-canonical code (:mod:`covertree.gluing.structure`), counted in
-:class:`GluingStats`.
+Each cover once
+---------------
+The rules use only some of the symmetries of the partial matching (a swap of
+twins combined with a deck transformation of a used piece, for example, is
+not among them), so a few matchings that are not least still reach the last
+port.  Each connected complete matching ``M`` is therefore tested
+(:mod:`covertree.gluing.orbits`): a search over ``G``, defining ``g`` piece
+by piece along the word, decides exactly whether some ``gM`` is a lesser
+word, and ``M`` is kept only when none is, that is when ``M = M_0``.
+
+*Proof that every cover is listed exactly once.*  The covers of a choice are
+the ``G``-orbits of its connected matchings, and each orbit has exactly one
+least word ``M_0`` (a total order on finite words).  The rules 1-4 never cut
+a prefix of ``M_0`` (above: each cut names a ``g`` with a lesser word), so
+``M_0`` reaches the last port; the test keeps it and drops every other word
+of the orbit that gets there.  The test and the rules concern the same least
+word, so they are compatible whatever the rules cut.  Distinct choices give
+non-isomorphic covers: an isomorphism carries the pieces over each vertex to
+conjugate pieces over the same vertex, so the normal forms over each vertex
+(the choice) are an invariant.  Hence no two covers listed are isomorphic,
+and no canonical code needs to be remembered: a code is computed once per
+cover listed, for its ``code`` and ``|Aut f|`` (with
+``GluingStats(check_codes=True)`` the codes are remembered and a repeat
+counted, which the tests check never happens).
 
 References
 ----------
@@ -88,6 +107,7 @@ from math import factorial, prod
 from covertree.errors import IdentityError, ProblemError
 from covertree.graphs.curve_graph import CurveGraph
 from covertree.hurwitz.problem import source_genus
+from covertree.gluing.orbits import OrbitTest
 from covertree.gluing.structure import Glued, Port, canonical_code, piece_cycles
 from covertree.monodromy.local import LocalCover, local_covers, special_points
 from covertree.monodromy.pieces import Piece
@@ -133,12 +153,22 @@ class GluedCover:
 class GluingStats:
     """Counters of one enumeration (filled in when passed to
     :func:`glued_covers`): matchings reaching the last port, the connected
-    ones (each given a canonical code), and the repeats among those (the same
-    cover reached again, dropped)."""
+    ones that are not the least word of their orbit (``rejected``: each is a
+    cover already listed or yet to be, dropped before any canonical code), the
+    canonical codes computed (one per cover listed), and the repeats among
+    those codes.
+
+    The engine keeps no record of the codes it has listed: each cover is
+    generated once (module docstring).  With ``check_codes`` it keeps them and
+    counts in ``repeats`` every code met twice, which the proof says never
+    happens; tests and benchmarks set it.
+    """
 
     matchings: int = 0
     codes: int = 0
     repeats: int = 0
+    rejected: int = 0
+    check_codes: bool = False
 
     @property
     def covers(self) -> int:
@@ -166,10 +196,10 @@ def glued_covers(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]
     >>> base = StableCurveGraph([(1, [1])])
     >>> [(c.automorphisms, c.source_legs) for c in glued_covers(base, 2, [(1, 1)], [(1, 1)])]
     [(1, (0,)), (1, (0,)), (1, (0,))]
-    >>> stats = GluingStats()
+    >>> stats = GluingStats(check_codes=True)
     >>> base = StableCurveGraph([(0, [1]), (0, [2])], nodes=[(0, 1), (0, 1)])
-    >>> len(list(glued_covers(base, 4, [(2, 1, 1)] * 2, stats=stats))), stats.covers, stats.repeats
-    (12, 12, 1)
+    >>> len(list(glued_covers(base, 4, [(2, 1, 1)] * 2, stats=stats))), stats.codes, stats.rejected, stats.repeats
+    (12, 12, 1, 0)
     """
     specs = special_points(base)
     stats = GluingStats() if stats is None else stats
@@ -276,6 +306,7 @@ class _Matcher:
         self.used: set[Port] = set()
         self.floor: dict[Port, int] = {}
         self.copies: list[_Copies] = []
+        self.orbit_test = self._orbit_test()
 
     @staticmethod
     def _edge_order(base: CurveGraph) -> list[int]:
@@ -334,6 +365,16 @@ class _Matcher:
                     act.update({(p, c): where[g[cy[0]]] for c, cy in enumerate(cyc)})
                 out.append(act)
         return out
+
+    def _orbit_test(self) -> OrbitTest:
+        """The group of the choice acting on the words of its matchings
+        (:mod:`covertree.gluing.orbits`)."""
+        positions = [port for left, _right, _k, _f in self.sides for port, _length in left]
+        classes = [sorted(self.twins[j] + [j] + [i for i in range(j + 1, len(self.pieces)) if j in self.twins[i]])
+                   for j in range(len(self.pieces))]
+        identity = [{(p, c): c for p in self.halves[i] for c in range(len(self.glued.port_cycles[i][p]))}
+                    for i in range(len(self.pieces))]
+        return OrbitTest(positions, classes, [[identity[i]] + self.decks[i] for i in range(len(self.pieces))])
 
     def _moves(self, i: int, extra: tuple[int, int] | None = None) -> Iterator[dict[tuple[int, int], int]]:
         """The deck actions of piece ``i`` fixing each of its used ports (and
@@ -571,17 +612,21 @@ def _gluings(base: CurveGraph, specs: list, choice: list[LocalCover],
         for k in range(base.n_nodes)
     )
     mult = prod(x for prof in edge_profiles for x in prof)
-    seen: set[tuple] = set()
+    seen: set[tuple] | None = set() if stats.check_codes else None
     for _partner in m.matchings():
         stats.matchings += 1
         if not m.connected():
             continue
+        if m.orbit_test.has_lesser(m.glued.partner):
+            stats.rejected += 1  # not the least word of its orbit: a repeat
+            continue
         stats.codes += 1
         code, aut = canonical_code(m.glued)
-        if code in seen:
-            stats.repeats += 1
-            continue
-        seen.add(code)
+        if seen is not None:
+            if code in seen:
+                stats.repeats += 1  # never, by the proof in the module docstring
+                continue
+            seen.add(code)
         record = _record(m, code, aut, mult, edge_profiles)
         yield from _marked(m, record, candidates) if marks else (record,)
 
