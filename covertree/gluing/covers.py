@@ -108,8 +108,8 @@ from covertree.errors import IdentityError, ProblemError
 from covertree.graphs.curve_graph import CurveGraph
 from covertree.hurwitz.problem import source_genus
 from covertree.gluing.orbits import OrbitTest
-from covertree.gluing.structure import Glued, Port, canonical_code, piece_cycles
-from covertree.monodromy.local import LocalCover, local_covers, special_points
+from covertree.gluing.structure import Glued, Port, canonical_code, forget_pieces, piece_cycles
+from covertree.monodromy.local import LocalCover, forget_pieces as forget_local_pieces, local_covers, special_points
 from covertree.monodromy.pieces import Piece
 from covertree.unionfind import DisjointSets
 
@@ -203,8 +203,20 @@ def glued_covers(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]
     """
     specs = special_points(base)
     stats = GluingStats() if stats is None else stats
-    for choice in balanced_choices(base, degree, profiles):
-        yield from _gluings(base, specs, choice, marks, stats)
+    try:
+        for choice in balanced_choices(base, degree, profiles):
+            yield from _gluings(base, specs, choice, marks, stats)
+    finally:
+        _forget()
+
+
+def _forget() -> None:
+    """Drop the pieces of a finished stratum and what is cached about them:
+    strata share few local covers (the half-edge profiles differ), and
+    keeping them made memory grow with the degree."""
+    _local_covers.cache_clear()
+    forget_local_pieces()
+    forget_pieces()
 
 
 def balanced_choices(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]]) -> Iterator[list[LocalCover]]:
