@@ -63,13 +63,21 @@ class OrbitTest:
         self.fwd: list[tuple[int, Action] | None] = [None] * len(self.classes)
         self.inv: list[tuple[int, Action] | None] = [None] * len(self.classes)
         self.partner: dict[Port, Port] = {}
+        self.left: int | None = None
 
-    def has_lesser(self, partner: dict[Port, Port]) -> bool:
+    def has_lesser(self, partner: dict[Port, Port], budget: int | None = None) -> bool | None:
         """Whether some ``g`` in ``G`` gives a word less than the matching
         ``partner``'s (exact for a complete matching; for a partial one, yes
-        only when every completion has a lesser word in its orbit)."""
+        only when every completion has a lesser word in its orbit); ``None``
+        when more than ``budget`` letters would be compared."""
         self.partner = partner
-        return self._position(0)
+        self.left = budget
+        try:
+            return self._position(0)
+        except _OverBudget:
+            self.fwd = [None] * len(self.classes)
+            self.inv = [None] * len(self.classes)
+            return None
 
     def _position(self, i: int) -> bool:
         if i == len(self.positions):
@@ -93,6 +101,10 @@ class OrbitTest:
 
     def _letter(self, i: int, x: Port, image: int, act: Action) -> bool:
         """Read ``z = M(h(x_i))`` and compare ``h^-1(z)`` with ``M(x_i)``."""
+        if self.left is not None:
+            self.left -= 1
+            if self.left < 0:
+                raise _OverBudget
         z = self.partner.get((image, x[1], act[0][x[1:]]))
         if z is None:
             return False
@@ -125,6 +137,10 @@ class OrbitTest:
         if letter != target:
             return letter < target
         return self._position(i + 1)
+
+
+class _OverBudget(Exception):
+    """The search compared more letters than it was allowed."""
 
 
 def _distinct(acts: Sequence[dict[tuple[int, int], int]]) -> list[Action]:

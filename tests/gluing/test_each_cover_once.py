@@ -66,7 +66,7 @@ def _shapes(covers) -> Counter:
 
 
 def _compare(base, degree, profiles, marks=()) -> GluingStats:
-    stats = GluingStats(check_codes=True)
+    stats = GluingStats()
     new = list(glued_covers(base, degree, profiles, marks, stats))
     old = list(reference_glued_covers(base, degree, profiles, marks))
     assert _shapes(new) == _shapes(old), base.notation
