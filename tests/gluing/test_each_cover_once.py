@@ -119,3 +119,19 @@ def test_no_repeats_where_the_rules_left_some(case):
     stats = _compare(parse_graph(text), degree, profiles)
     assert stats.repeats == 0
     assert stats.codes == stats.covers
+
+
+@pytest.mark.parametrize("budget", [0, 40])
+def test_same_covers_when_the_orbit_test_gives_up(monkeypatch, budget):
+    # past its budget the orbit test leaves the rest of the choice to the
+    # canonical codes: the list is the same, and the repeats are counted
+    import covertree.gluing.covers as covers
+
+    monkeypatch.setattr(covers, "ORBIT_TEST_BUDGET", budget)
+    base = parse_graph("g0, g0{1,2} | 0-0, 0-1")
+    stats = GluingStats()
+    profiles = [(2, 1, 1, 1)] * 2
+    new = list(glued_covers(base, 5, profiles, stats=stats))
+    assert _shapes(new) == _shapes(reference_glued_covers(base, 5, profiles))
+    assert stats.untested > 0
+    assert stats.repeats > 0 and stats.covers == len(new)
