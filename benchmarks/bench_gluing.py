@@ -5,8 +5,9 @@ base stratum of codimension <= 2 (the 5 strata of Mbar_{1,2}).
 
 1. The engine (:func:`covertree.gluing.covers.glued_covers`) at D = 6..9 (and
    10 with ``--ten``): covers, CPU seconds, CPU time per cover and its ratio to
-   D = 6, and per stratum the canonical codes computed per cover and the
-   repeats dropped (:class:`covertree.gluing.covers.GluingStats`).
+   D = 6, and per stratum the covers, the canonical codes computed per cover,
+   the repeats among them (0 when each cover is generated once) and the
+   matchings dropped by the orbit test as not the least word of their orbit (:class:`covertree.gluing.covers.GluingStats`).
 2. The same counts for the search as it was before (the reference in
    ``tests/gluing/reference_gluing.py``) at D = 6 and 7, on the same strata.
 3. The whole command ``covertree catalogue -g 2 -t 1 -d D -k 2 -f jsonl`` at
@@ -70,7 +71,9 @@ def bench_engine(degrees) -> None:
             stats = GluingStats()
             n = sum(1 for _ in glued_covers(base, d, profiles, stats=stats))
             total += n
-            rows.append(f"{base.notation}: {stats.codes / n:.2f} codes/cover ({stats.repeats} repeats)")
+            rows.append(f"{base.notation}: {n} covers, {stats.codes / n:.2f} codes/cover ({stats.repeats} repeats, "
+                        f"{stats.rejected} words not least dropped before any code, "
+                        f"{stats.untested} choices left untested)")
         seconds = time.process_time() - start
         per_cover[d] = seconds / total
         ratio = per_cover[d] / per_cover[degrees[0]]

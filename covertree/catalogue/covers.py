@@ -28,7 +28,8 @@ from fractions import Fraction
 
 from covertree.errors import IdentityError
 from covertree.gluing.covers import GluedCover, glued_covers
-from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
+from covertree.graphs.canonical import _certify
+from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph, _relabelled, _unstable_vertex, _validated
 from covertree.hurwitz.problem import source_genus
 from covertree.stabilisation.stabilise import Stabilised, stabilise
 
@@ -51,6 +52,10 @@ class Cover:
     stabilised : Stabilised
         Stabilisation of ``raw``'s source, with the chain of source nodes
         behind each stable node.
+    source_order, stable_order : tuple of int
+        The canonical vertex orders of ``source`` (raw source components) and
+        ``stable_source`` (vertices of ``stabilised``), kept from building
+        them so that they are not computed again; empty when not known.
     """
 
     edge_profiles: tuple[tuple[int, ...], ...]
@@ -60,6 +65,8 @@ class Cover:
     multiplicity: int
     raw: GluedCover = field(compare=False, repr=False)
     stabilised: Stabilised = field(compare=False, repr=False)
+    source_order: tuple[int, ...] = field(default=(), compare=False, repr=False)
+    stable_order: tuple[int, ...] = field(default=(), compare=False, repr=False)
 
     @property
     def weight(self) -> Fraction:
@@ -118,21 +125,33 @@ def legs_per_vertex(n_vertices: int, carriers: Sequence[int]) -> tuple[tuple[int
 def make_graph(genera: Sequence[int], edges: Sequence[tuple[int, int]],
                legs: Sequence[Sequence[int]] | None = None) -> CurveGraph:
     """A :class:`StableCurveGraph` when stable, else a :class:`CurveGraph`."""
-    graph = CurveGraph._from_parts(genera, edges, legs)
-    return StableCurveGraph._from_parts(genera, edges, legs) if graph.is_stable() else graph
+    return certified_graph(genera, edges, legs)[0]
+
+
+def certified_graph(genera: Sequence[int], edges: Sequence[tuple[int, int]],
+                    legs: Sequence[Sequence[int]] | None = None) -> tuple[CurveGraph, tuple[int, ...]]:
+    """:func:`make_graph` and the canonical vertex order behind it (the input
+    vertex at each canonical position, as in
+    :func:`covertree.graphs.canonical.canonical_form`), from one canonical
+    form."""
+    genera, edges, legs = _validated(genera, edges, legs)
+    key, order, aut_v = _certify(genera, edges, legs)
+    kind = StableCurveGraph if _unstable_vertex(genera, edges, legs) is None else CurveGraph
+    return kind._from_canonical(*_relabelled(genera, edges, legs, order), key, aut_v), tuple(order)
 
 
 def to_cover(raw: GluedCover, genus: int) -> Cover:
     """Build the user-facing cover, checking the source's arithmetic genus."""
     legs = legs_per_vertex(len(raw.source_genera), raw.source_legs)
-    source = make_graph(raw.source_genera, raw.source_edges, legs)
+    source, source_order = certified_graph(raw.source_genera, raw.source_edges, legs)
     if source.genus != genus:
         raise IdentityError(
             f"source {source.notation} has arithmetic genus {source.genus}, not {genus}"
         )
     stab = stabilise(raw.source_genera, raw.source_edges, legs)
-    stable = make_graph(stab.genera, stab.edges, stab.legs)
-    return Cover(raw.edge_profiles, source, stable, raw.automorphisms, raw.multiplicity, raw, stab)
+    stable, stable_order = certified_graph(stab.genera, stab.edges, stab.legs)
+    return Cover(raw.edge_profiles, source, stable, raw.automorphisms, raw.multiplicity, raw, stab,
+                 source_order, stable_order)
 
 
 def stratum_covers(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]],

@@ -57,13 +57,14 @@ stabilises to one non-separating node smoothed to order ``1 + 1 = 2``:
 
 from __future__ import annotations
 
+from collections.abc import Sequence
 from dataclasses import dataclass
 from math import lcm, prod
 from typing import NamedTuple
 
 from covertree.catalogue.covers import Cover, legs_per_vertex
 from covertree.errors import IdentityError, ProblemError
-from covertree.graphs.canonical import canonical_form
+from covertree.graphs.canonical import canonical_edge_order, canonical_form
 from covertree.stabilisation.stabilise import smoothing_orders
 
 __all__ = ["BaseNode", "StableNode", "LocalStructure", "local_structure", "node_type", "branch_count"]
@@ -221,8 +222,8 @@ def local_structure(cover: Cover) -> LocalStructure:
 
 def _source_indices(cover: Cover) -> tuple[int, ...]:
     raw = cover.raw
-    _key, vertex_order, edge_order = canonical_form(raw.source_genera, raw.source_edges,
-                                                    legs_per_vertex(len(raw.source_genera), raw.source_legs))
+    vertex_order, edge_order = _orders(cover.source_order, raw.source_genera, raw.source_edges,
+                                       legs_per_vertex(len(raw.source_genera), raw.source_legs))
     position = {v: i for i, v in enumerate(vertex_order)}
     rows = sorted(
         (tuple(sorted((position[raw.source_edges[k][0]], position[raw.source_edges[k][1]]))),
@@ -239,7 +240,7 @@ def _stable_nodes(cover: Cover, big_l: int) -> tuple[StableNode, ...]:
     index = cover.raw.source_edge_index
     over = cover.raw.source_edge_over
     orders = [smoothing_orders(chain, over, index, (big_l,))[0] for chain in stab.chains]
-    _key, vertex_order, edge_order = canonical_form(stab.genera, stab.edges, stab.legs)
+    vertex_order, edge_order = _orders(cover.stable_order, stab.genera, stab.edges, stab.legs)
     position = {v: i for i, v in enumerate(vertex_order)}
     rows = []
     for raw_k in edge_order:
@@ -254,6 +255,15 @@ def _stable_nodes(cover: Cover, big_l: int) -> tuple[StableNode, ...]:
     if found != tuple(cover.stable_source.nodes):  # pragma: no cover - a bug
         raise IdentityError(f"stable nodes {list(found)} do not match the stable source {cover.stable_source.notation}")
     return tuple(StableNode(k, row.ends, row.order, row.type, row.chain) for k, row in enumerate(rows))
+
+
+def _orders(known: tuple[int, ...], genera, edges, legs) -> tuple[Sequence[int], list[int]]:
+    """Canonical vertex and edge orders of a graph, from the vertex order the
+    cover kept when it built the graph (computed afresh when it has none)."""
+    if known:
+        return known, canonical_edge_order(known, edges)
+    _key, vertex_order, edge_order = canonical_form(genera, edges, legs)
+    return vertex_order, edge_order
 
 
 class _StableRow(NamedTuple):

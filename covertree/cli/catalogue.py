@@ -8,7 +8,7 @@ import click
 from rich.table import Table
 
 from covertree.catalogue.catalogue import (
-    DEFAULT_MAX_COVERS, Catalogue, StratumResult, build_catalogue, problem_hurwitz, select_strata, stratum_result,
+    DEFAULT_MAX_COVERS, Catalogue, StratumResult, build_catalogue, iter_stratum, problem_hurwitz, select_strata,
 )
 from covertree.catalogue.grouping import CoverGroup, group_covers
 from covertree.catalogue.feasibility import check_cover_count
@@ -18,7 +18,7 @@ from covertree.catalogue.covers import divisor_name
 from covertree.catalogue.local_structure import local_structure
 from covertree.cli.render import fitted_table, table_text, watched
 from covertree.export.catalogue import (
-    catalogue_to_csv, catalogue_to_json, catalogue_to_latex, contracted_note, cover_to_jsonl, source_heading,
+    catalogue_to_csv, catalogue_to_json, catalogue_to_latex, contracted_note, source_heading, stratum_jsonl,
 )
 from covertree.errors import InputError
 from covertree.export.rational import rational_str
@@ -149,11 +149,11 @@ def _stream(problem, strata, budget, output) -> list:
     failures = []
     with AtomicOutput(output) as out:
         for number, base in enumerate(strata, start=1):
-            result = stratum_result(problem, base, budget, hurwitz)
-            for k, cover in enumerate(result.covers, start=1):
-                out.write(cover_to_jsonl(base, cover, number, k) + "\n")
-            if not result.identity_holds:
-                failures.append((base.graph.notation, result.total_weight, hurwitz))
+            lines, total = stratum_jsonl(base, iter_stratum(problem, base, budget), number)
+            for line in lines:
+                out.write(line + "\n")
+            if total != hurwitz:
+                failures.append((base.graph.notation, total, hurwitz))
     return failures
 
 

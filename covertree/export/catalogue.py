@@ -65,7 +65,9 @@ from __future__ import annotations
 
 import csv
 import io
+from collections.abc import Iterable, Iterator
 from fractions import Fraction
+from operator import itemgetter
 
 from covertree.catalogue.catalogue import Catalogue, StratumResult
 from covertree.catalogue.covers import Cover
@@ -202,6 +204,25 @@ def cover_to_jsonl(base, cover: Cover, stratum_number: int | None = None, cover_
     if stratum_number is not None:
         record.update(stratum_number=stratum_number, cover_number=cover_number)
     return json_line(record)
+
+
+def stratum_jsonl(base, covers: Iterable[Cover], stratum_number: int) -> tuple[Iterator[str], Fraction]:
+    """The numbered JSON lines of one stratum's covers, in the order of
+    :meth:`Cover.sort_key` (the order of :func:`stratum_result` and so of every
+    output; the sort is stable, as there), and their total weight.
+
+    Each cover is turned into its line as it comes, and only its sort key and
+    line are kept until the stratum is sorted, not the cover itself."""
+    rows, total = [], Fraction(0)
+    for cover in covers:
+        rows.append((cover.sort_key(), cover_to_jsonl(base, cover)))
+        total += cover.weight
+    rows.sort(key=itemgetter(0))
+    # a compact line of cover_to_jsonl ends with "}": the two numbers are its
+    # last keys, as cover_to_jsonl would have written them
+    lines = (f'{line[:-1]},"stratum_number":{stratum_number},"cover_number":{k}}}'
+             for k, (_key, line) in enumerate(rows, start=1))
+    return lines, total
 
 
 def _profiles_text(cover: Cover) -> str:

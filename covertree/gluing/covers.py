@@ -49,11 +49,38 @@ with one another because they test the same least word:
    ``x_s``, ``g`` the swap: ``(gM)(x_s) = g(M(y))``, so ``M_0(x_s) <=
    g(M_0(y))``, tested when ``y`` is matched.
 
-Together the rules leave few repeats (a symmetry of the partial matching not
-of these forms, for example a swap of twins combined with a deck
-transformation of a used piece, is not used), and those are dropped by their
-canonical code (:mod:`covertree.gluing.structure`), counted in
-:class:`GluingStats`.
+Each cover once
+---------------
+The rules use only some of the symmetries of the partial matching (a swap of
+twins combined with a deck transformation of a used piece, for example, is
+not among them), so a few matchings that are not least still reach the last
+port.  Each connected complete matching ``M`` is therefore tested
+(:mod:`covertree.gluing.orbits`): a search over ``G``, defining ``g`` piece
+by piece along the word, decides exactly whether some ``gM`` is a lesser
+word, and ``M`` is kept only when none is, that is when ``M = M_0``.
+
+*Proof that every cover is listed exactly once.*  The covers of a choice are
+the ``G``-orbits of its connected matchings, and each orbit has exactly one
+least word ``M_0`` (a total order on finite words).  The rules 1-4 never cut
+a prefix of ``M_0`` (above: each cut names a ``g`` with a lesser word), so
+``M_0`` reaches the last port; the test keeps it and drops every other word
+of the orbit that gets there.  The test and the rules concern the same least
+word, so they are compatible whatever the rules cut.  Distinct choices give
+non-isomorphic covers: an isomorphism carries the pieces over each vertex to
+conjugate pieces over the same vertex, so the normal forms over each vertex
+(the choice) are an invariant.  Hence no two covers listed are isomorphic,
+and a code is computed once per cover listed, for its ``code`` and ``|Aut
+f|``.
+
+The test is a search, and when the word reads many twins before it reads
+what tells them apart (identical pieces on both sides of parallel nodes) it
+can meet about as many partial elements as there are permutations of twins.
+It is therefore given a budget of letters (:data:`ORBIT_TEST_BUDGET`); when a
+test runs out, that matching and the rest of its choice are kept without the
+test, and repeats are dropped by their canonical code, remembered per choice
+as a safety net and counted in :class:`GluingStats` (``repeats``, 0 whenever
+every test finished).  Both ways keep one matching of each orbit, so the
+list is the same.
 
 References
 ----------
@@ -88,8 +115,9 @@ from math import factorial, prod
 from covertree.errors import IdentityError, ProblemError
 from covertree.graphs.curve_graph import CurveGraph
 from covertree.hurwitz.problem import source_genus
-from covertree.gluing.structure import Glued, Port, canonical_code, piece_cycles
-from covertree.monodromy.local import LocalCover, local_covers, special_points
+from covertree.gluing.orbits import OrbitTest
+from covertree.gluing.structure import Glued, Port, canonical_code, forget_pieces, piece_cycles
+from covertree.monodromy.local import LocalCover, forget_pieces as forget_local_pieces, local_covers, special_points
 from covertree.monodromy.pieces import Piece
 from covertree.unionfind import DisjointSets
 
@@ -133,12 +161,18 @@ class GluedCover:
 class GluingStats:
     """Counters of one enumeration (filled in when passed to
     :func:`glued_covers`): matchings reaching the last port, the connected
-    ones (each given a canonical code), and the repeats among those (the same
-    cover reached again, dropped)."""
+    ones that are not the least word of their orbit (``rejected``: each is a
+    cover listed once anyway, dropped before any canonical code), the
+    canonical codes computed, and the repeats among those codes; ``untested``
+    counts the choices whose orbit test gave up (:data:`ORBIT_TEST_BUDGET`),
+    the only ones where repeats can happen (module docstring).
+    """
 
     matchings: int = 0
     codes: int = 0
     repeats: int = 0
+    rejected: int = 0
+    untested: int = 0
 
     @property
     def covers(self) -> int:
@@ -168,13 +202,25 @@ def glued_covers(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]
     [(1, (0,)), (1, (0,)), (1, (0,))]
     >>> stats = GluingStats()
     >>> base = StableCurveGraph([(0, [1]), (0, [2])], nodes=[(0, 1), (0, 1)])
-    >>> len(list(glued_covers(base, 4, [(2, 1, 1)] * 2, stats=stats))), stats.covers, stats.repeats
-    (12, 12, 1)
+    >>> len(list(glued_covers(base, 4, [(2, 1, 1)] * 2, stats=stats))), stats.codes, stats.rejected, stats.repeats
+    (12, 12, 1, 0)
     """
     specs = special_points(base)
     stats = GluingStats() if stats is None else stats
-    for choice in balanced_choices(base, degree, profiles):
-        yield from _gluings(base, specs, choice, marks, stats)
+    try:
+        for choice in balanced_choices(base, degree, profiles):
+            yield from _gluings(base, specs, choice, marks, stats)
+    finally:
+        _forget()
+
+
+def _forget() -> None:
+    """Drop the pieces of a finished stratum and what is cached about them:
+    strata share few local covers (the half-edge profiles differ), and
+    keeping them made memory grow with the degree."""
+    _local_covers.cache_clear()
+    forget_local_pieces()
+    forget_pieces()
 
 
 def balanced_choices(base: CurveGraph, degree: int, profiles: Sequence[Sequence[int]]) -> Iterator[list[LocalCover]]:
@@ -276,6 +322,7 @@ class _Matcher:
         self.used: set[Port] = set()
         self.floor: dict[Port, int] = {}
         self.copies: list[_Copies] = []
+        self.orbit_test = self._orbit_test()
 
     @staticmethod
     def _edge_order(base: CurveGraph) -> list[int]:
@@ -334,6 +381,16 @@ class _Matcher:
                     act.update({(p, c): where[g[cy[0]]] for c, cy in enumerate(cyc)})
                 out.append(act)
         return out
+
+    def _orbit_test(self) -> OrbitTest:
+        """The group of the choice acting on the words of its matchings
+        (:mod:`covertree.gluing.orbits`)."""
+        positions = [port for left, _right, _k, _f in self.sides for port, _length in left]
+        classes = [sorted(self.twins[j] + [j] + [i for i in range(j + 1, len(self.pieces)) if j in self.twins[i]])
+                   for j in range(len(self.pieces))]
+        identity = [{(p, c): c for p in self.halves[i] for c in range(len(self.glued.port_cycles[i][p]))}
+                    for i in range(len(self.pieces))]
+        return OrbitTest(positions, classes, [[identity[i]] + self.decks[i] for i in range(len(self.pieces))])
 
     def _moves(self, i: int, extra: tuple[int, int] | None = None) -> Iterator[dict[tuple[int, int], int]]:
         """The deck actions of piece ``i`` fixing each of its used ports (and
@@ -562,6 +619,11 @@ def _component(m: _Matcher, start: int) -> tuple[list[int], tuple]:
     return order, key
 
 
+#: Letters the orbit test (:mod:`covertree.gluing.orbits`) may compare for
+#: one matching; past it, the rest of the choice is left to the codes.
+ORBIT_TEST_BUDGET = 100_000
+
+
 def _gluings(base: CurveGraph, specs: list, choice: list[LocalCover],
              marks: Sequence[tuple[int, int]], stats: GluingStats) -> Iterator[GluedCover]:
     m = _Matcher(base, specs, choice)
@@ -572,14 +634,23 @@ def _gluings(base: CurveGraph, specs: list, choice: list[LocalCover],
     )
     mult = prod(x for prof in edge_profiles for x in prof)
     seen: set[tuple] = set()
+    budget: int | None = ORBIT_TEST_BUDGET
     for _partner in m.matchings():
         stats.matchings += 1
         if not m.connected():
             continue
+        if budget is not None:
+            lesser = m.orbit_test.has_lesser(m.glued.partner, budget)
+            if lesser:
+                stats.rejected += 1  # not the least word of its orbit: a repeat
+                continue
+            if lesser is None:
+                stats.untested += 1
+                budget = None  # the codes alone drop repeats for the rest of the choice
         stats.codes += 1
         code, aut = canonical_code(m.glued)
         if code in seen:
-            stats.repeats += 1
+            stats.repeats += 1  # only after the test gave up (module docstring)
             continue
         seen.add(code)
         record = _record(m, code, aut, mult, edge_profiles)

@@ -77,6 +77,13 @@ def least_cycles(piece: Piece, p: int) -> tuple[int, ...]:
     return tuple(c for c, cy in enumerate(cyc) if c == min(where[g[cy[0]]] for g in piece.centraliser))
 
 
+def forget_pieces() -> None:
+    """Empty the caches kept per piece (cycles, breadth-first views), so that
+    the pieces of one base stratum are not held while the next is listed."""
+    for cached in (piece_cycles, least_cycles, _view, _least_label):
+        cached.cache_clear()
+
+
 def canonical_code(glued: Glued, marks: tuple[Port, ...] = ()) -> tuple[tuple, int]:
     """The canonical code of a connected glued structure and ``|Aut|``.
 

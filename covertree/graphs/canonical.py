@@ -93,13 +93,18 @@ def canonical_form(
     """
     _check_shape(genera, edges, legs)
     key, order, _ = _certify(tuple(genera), tuple(map(tuple, edges)), tuple(map(tuple, legs)))
-    inv = [0] * len(order)
-    for pos, v in enumerate(order):
+    return key, order, canonical_edge_order(order, edges)
+
+
+def canonical_edge_order(vertex_order: Sequence[int], edges: Sequence[tuple[int, int]]) -> list[int]:
+    """The edge order of :func:`canonical_form` from its vertex order: input
+    edge indices by canonical position (parallel edges in input order)."""
+    inv = [0] * len(vertex_order)
+    for pos, v in enumerate(vertex_order):
         inv[v] = pos
-    n = len(order)
+    n = len(vertex_order)
     codes = [_edge_code(inv[a], inv[b], n) for a, b in edges]
-    edge_order = sorted(range(len(codes)), key=codes.__getitem__)
-    return key, order, edge_order
+    return sorted(range(len(codes)), key=codes.__getitem__)
 
 
 def count_automorphisms(

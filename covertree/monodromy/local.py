@@ -114,6 +114,11 @@ def _pieces(k: int, genus: int, key: tuple) -> tuple[Piece, ...]:
     return tuple(connected_pieces(k, genus, [None if a is None else dict(a) for a in key]))
 
 
+def forget_pieces() -> None:
+    """Empty the cache of connected pieces by allowance (:func:`_pieces`)."""
+    _pieces.cache_clear()
+
+
 def _multisets(pieces: list[Piece], start: int, left: tuple[int, int], need: list, acc: list, out: list) -> None:
     """Non-decreasing choices of pieces with total degree ``left[0]`` and
     total genus at most ``left[1]`` whose leg types exhaust ``need``
