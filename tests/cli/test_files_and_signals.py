@@ -1,7 +1,6 @@
 """Output files against the store, drawings, temporary files and signals
 (issue 14, files; concurrency and signals)."""
 
-import gc
 import multiprocessing
 import os
 import shutil
@@ -124,36 +123,33 @@ def temporaries(folder):
     return [p for p in folder.iterdir() if ".covertree-partial-" in p.name]
 
 
-def signal_when(ready, sig) -> threading.Thread:
+def signal_when(ready, sig, done: threading.Event) -> threading.Thread:
     """Send ``sig`` to this process (its main thread runs the command) once
-    ``ready()`` holds."""
+    ``ready()`` holds, and again every 2 s while it still holds and ``done`` is
+    not set: Python swallows an exception raised in a weak-reference or
+    collector callback, so a signal landing in one is lost and the command would
+    run to its end (seen under load)."""
     def watch():
         deadline = time.monotonic() + 60
         while not ready() and time.monotonic() < deadline:
             time.sleep(0.01)
-        os.kill(os.getpid(), sig)
+        while True:
+            os.kill(os.getpid(), sig)
+            if done.wait(2.0) or not ready():
+                return
 
     thread = threading.Thread(target=watch, daemon=True)
     thread.start()
     return thread
 
 
-@pytest.fixture
-def no_gc_callbacks():
-    """Garbage-collector callbacks (the test tools install some) swallow an
-    exception raised inside them, so a signal landing there would be lost and
-    the command would run to its end; none run during the test."""
-    saved = gc.callbacks[:]
-    gc.callbacks.clear()
-    yield
-    gc.callbacks[:] = saved
-
-
 @pytest.mark.parametrize("sig", [signal.SIGTERM, signal.SIGHUP, signal.SIGINT])
-def test_signal_during_output_removes_the_temporary_file(tmp_path, sig, no_gc_callbacks):
+def test_signal_during_output_removes_the_temporary_file(tmp_path, sig):
     output = tmp_path / "covers.jsonl"
-    watcher = signal_when(lambda: temporaries(tmp_path), sig)
+    done = threading.Event()
+    watcher = signal_when(lambda: temporaries(tmp_path), sig, done)
     result = invoke(*SLOW, "-o", str(output))
+    done.set()
     watcher.join()
     assert result.exit_code == 128 + sig, result.output
     assert result.stderr.count("\n") == 1 and f"interrupted by {signal.Signals(sig).name}" in result.stderr
