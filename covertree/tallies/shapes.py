@@ -46,12 +46,14 @@ from collections.abc import Sequence
 from dataclasses import dataclass, field
 from fractions import Fraction
 from functools import cached_property, lru_cache
+from math import factorial
 from itertools import product
 
 from covertree.hurwitz.numbers import connected_hurwitz
 from covertree.symmetric.partitions import partitions_of, sub_partitions
 
-__all__ = ["Shape", "piece_shapes", "candidate_shapes", "local_multisets", "vertex_pieces"]
+__all__ = ["Shape", "piece_shapes", "candidate_shapes", "local_multisets", "vertex_pieces",
+           "pooled_candidates", "representative", "orbit_size", "vertex_orbits"]
 
 Profile = tuple[int, ...]
 
@@ -131,9 +133,15 @@ def candidate_shapes(degree: int, vertex_genus: int, leg_profiles: tuple[Profile
 
 
 def _shapes_with_legs(k: int, h: int, legs: tuple[Profile, ...], n_halves: int,
-                      max_genus: int) -> list[Shape]:
+                      max_genus: int, pooled: int | None = None) -> list[Shape]:
+    """The shapes with these sub-profiles at the legs; with ``pooled = c``
+    the piece also uses ``c`` pooled simple legs (one ramification each),
+    recorded as a last pseudo-leg ``(2,) * c``."""
     # 2g - 2 = k(2h - 2) + sum_legs (k - len) + sum_halves (k - len)
-    base = k * (2 * h - 2) + sum(k - len(nu) for nu in legs) + n_halves * k + 2
+    ramification = sum(k - len(nu) for nu in legs) + (pooled or 0)
+    base = k * (2 * h - 2) + ramification + n_halves * k + 2
+    if pooled is not None:
+        legs = legs + ((2,) * pooled,)
     out = []
     for genus in range(max_genus + 1):
         total = base - 2 * genus
@@ -205,6 +213,116 @@ def vertex_pieces(degree: int, vertex_genus: int, leg_profiles: tuple[Profile, .
     return tuple(candidates[i] for i in used), [tuple(index[i] for i in m) for m in kept]
 
 
+@lru_cache(maxsize=None)
+def pooled_candidates(degree: int, vertex_genus: int, kept: tuple[Profile, ...], n_pooled: int,
+                      n_halves: int, max_genus: int) -> tuple[Shape, ...]:
+    """The candidate shapes over a vertex with legs of profiles ``kept`` and
+    ``n_pooled`` more simple legs taken up to permutation, sorted: a shape
+    using ``c`` of the pooled legs has the pseudo-leg ``(2,) * c`` after its
+    sub-profiles at ``kept`` (its weight is not a Hurwitz number: only the
+    shapes of :func:`representative` are weighed).
+
+    A piece of degree 1 uses no simple leg, and one of degree above
+    ``degree - 2`` uses every one (the other pieces have at most ``degree -
+    k < 2`` sheets, too few for a transposition).
+
+    Degree 2, two simple legs and one half-edge point: no piece of degree 1,
+    and the double cover branched at both legs, unramified over the node.
+
+    >>> [(s.degree, s.legs, s.halves) for s in pooled_candidates(2, 0, (), 2, 1, 0)]
+    [(2, ((2, 2),), ((1, 1),))]
+    """
+    out: list[Shape] = []
+    for k in range(1, degree + 1):
+        low, high = (n_pooled if k > degree - 2 else 0), (n_pooled if k > 1 else 0)
+        options = [[tuple(nu) for nu in sub_partitions(mu, k)] for mu in kept]
+        for legs in product(*options):
+            for c in range(low, high + 1):
+                out.extend(_shapes_with_legs(k, vertex_genus, legs, n_halves, max_genus, c))
+    return tuple(sorted(out))
+
+
+def representative(pieces: Sequence[Shape], n_legs: int, pooled: tuple[int, ...]) -> tuple[Shape, ...]:
+    """The labelled pieces of one local multiset in the orbit of ``pieces``
+    (candidates of :func:`pooled_candidates`, in order): the pooled legs, at
+    the positions ``pooled`` among the ``n_legs`` legs, are given out in
+    order, the first ``c_1`` to the first piece and so on.
+
+    >>> pieces = pooled_candidates(3, 0, ((3,),), 2, 0, 0)
+    >>> [(s.degree, s.legs) for s in pieces]
+    [(3, ((3,), (2, 2)))]
+    >>> [s.legs for s in representative(pieces, 3, (0, 2))]
+    [((2, 1), (3,), (2, 1))]
+    """
+    out, given = [], 0
+    where = {j: n for n, j in enumerate(pooled)}
+    for piece in pieces:
+        k, c, kept = piece.degree, len(piece.legs[-1]), iter(piece.legs[:-1])
+        legs = tuple(next(kept) if j not in where else
+                     (2,) + (1,) * (k - 2) if given <= where[j] < given + c else (1,) * k
+                     for j in range(n_legs))
+        given += c
+        out.append(Shape(k, legs, piece.halves, piece.genus, piece.vertex_genus))
+    return tuple(out)
+
+
+def orbit_size(pieces: Sequence[Shape], n_pooled: int) -> int:
+    """The number of labelled local multisets with these pooled pieces:
+    ``n! / (prod_i c_i! * prod_P m_P!)``, ``c_i`` the pooled legs of piece
+    ``i`` and ``m_P`` the multiplicity of each pooled shape ``P`` with
+    ``c > 0`` (module docstring).
+
+    >>> pieces = pooled_candidates(4, 0, (), 4, 0, 2)
+    >>> two = [s for s in pieces if s.degree == 2 and s.legs == ((2, 2),)]
+    >>> orbit_size(two * 2, 4)    # {ab, cd}, {ac, bd}, {ad, bc}
+    3
+    """
+    ways = factorial(n_pooled)
+    for piece in pieces:
+        ways //= factorial(len(piece.legs[-1]))
+    for piece, m in Counter(pieces).items():
+        if piece.legs[-1]:
+            ways //= factorial(m)
+    return ways
+
+
+def vertex_orbits(degree: int, vertex_genus: int, leg_profiles: tuple[Profile, ...], n_halves: int,
+                  max_genus: int, loops: tuple[tuple[int, int], ...] = (), pooled: tuple[int, ...] = ()
+                  ) -> tuple[tuple[Shape, ...], list[tuple[int, ...]], list[int]]:
+    """The local multisets of :func:`vertex_pieces` up to permutations of the
+    simple legs at the positions ``pooled``: ``(shapes, multisets, sizes)``,
+    one labelled multiset per orbit (:func:`representative`) with its orbit
+    size, in the order and form of :func:`vertex_pieces`.
+
+    Degree 4 over ``P^1`` with four simple points, genus at most 1: a double
+    cover and two sheets, a trigonal cover and a sheet (one orbit each), or
+    two double covers branched at two points each (three ways to split the
+    points, one orbit):
+
+    >>> shapes, multisets, sizes = vertex_orbits(4, 0, ((2, 1, 1),) * 4, 0, 1, (), (0, 1, 2, 3))
+    >>> [[shapes[i].degree for i in m] for m in multisets], sizes
+    ([[1, 1, 2], [1, 3], [2, 2]], [1, 1, 3])
+    >>> [shapes[i].legs for i in multisets[2]]
+    [((1, 1), (1, 1), (2,), (2,)), ((2,), (2,), (1, 1), (1, 1))]
+    """
+    kept = tuple(mu for j, mu in enumerate(leg_profiles) if j not in pooled)
+    candidates = pooled_candidates(degree, vertex_genus, kept, len(pooled), n_halves, max_genus)
+    plan = _SlotPlan(candidates, kept + ((2,) * len(pooled),), loops, pooled=True)
+    found: list[tuple[int, ...]] = []
+    plan.cover(0, -1, degree, max_genus, 0, [], found)
+    orbits: dict[tuple[Shape, ...], int] = {}
+    for m in found:
+        if plan.early or _balanced(candidates, m, loops):
+            pieces = [candidates[i] for i in sorted(m)]
+            labelled = representative(pieces, len(leg_profiles), pooled)
+            if all(s.hurwitz for s in labelled):
+                orbits[tuple(sorted(labelled))] = orbit_size(pieces, len(pooled))
+    shapes = sorted({s for m in orbits for s in m})
+    index = {s: n for n, s in enumerate(shapes)}
+    rows = sorted((tuple(index[s] for s in m), n) for m, n in orbits.items())
+    return tuple(shapes), [m for m, _ in rows], [n for _, n in rows]
+
+
 def _balanced(shapes: Sequence["Shape"], multiset: Sequence[int], loops: tuple[tuple[int, int], ...]) -> bool:
     """Whether the multiset's profiles agree at both ends of every loop."""
     for p, q in loops:
@@ -218,8 +336,10 @@ class _SlotPlan:
     """The slots of one vertex and, per shape, the slots it uses."""
 
     def __init__(self, shapes: Sequence[Shape], leg_profiles: tuple[Profile, ...],
-                 loops: tuple[tuple[int, int], ...] = ()) -> None:
+                 loops: tuple[tuple[int, int], ...] = (), pooled: bool = False) -> None:
         slots = sorted({(j, x) for j, mu in enumerate(leg_profiles) for x in mu if x > 1})
+        # the pseudo-leg of pooled simple legs (last) is no leg of degree d: no mass
+        real = len(leg_profiles) - pooled
         self.shapes = shapes
         self.loops = loops
         self.need = [Counter(leg_profiles[j])[x] for j, x in slots]
@@ -228,10 +348,10 @@ class _SlotPlan:
         self.bits, self.multi, self.users = [], [], [[] for _ in slots]
         self.free: list[int] = []
         # per leg, the mass of its cycles of length >= 2 not yet used
-        self.mass = [sum(x for x in mu if x > 1) for mu in leg_profiles]
+        self.mass = [sum(x for x in mu if x > 1) for mu in leg_profiles[:real]] or [0]
         self.spend: list[tuple[tuple[int, int], ...]] = []
         for i, shape in enumerate(shapes):
-            self.spend.append(tuple((j, sum(x for x in nu if x > 1)) for j, nu in enumerate(shape.legs)
+            self.spend.append(tuple((j, sum(x for x in nu if x > 1)) for j, nu in enumerate(shape.legs[:real])
                                     if any(x > 1 for x in nu)))
             used = sorted((where[(j, x)], m) for j, nu in enumerate(shape.legs)
                           for x, m in Counter(nu).items() if x > 1)

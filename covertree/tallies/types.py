@@ -110,7 +110,7 @@ instance J. C. Baez and J. Dolan, *From finite sets to Feynman diagrams*
 from __future__ import annotations
 
 from collections.abc import Iterator, Sequence
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from fractions import Fraction
 from functools import lru_cache
 from collections import Counter
@@ -127,7 +127,7 @@ from covertree.monodromy.local import special_points
 from covertree.stabilisation.stabilise import Stabilised, smoothing_orders, stabilise
 from covertree.strata.base import BaseStratum
 from covertree.tallies.gluing import count_matchings
-from covertree.tallies.shapes import Shape, vertex_pieces
+from covertree.tallies.shapes import Shape, vertex_orbits, vertex_pieces
 
 __all__ = ["TallyEntry", "TypeTally", "TallyCatalogue", "CoverType", "tally_stratum", "tally_catalogue", "iter_types"]
 
@@ -287,6 +287,7 @@ class _Vertex:
     multisets: tuple[tuple[int, ...], ...]
     halves: tuple[tuple, ...]  # per half point of the vertex: ("half", k, side)
     groups: tuple[frozenset, ...] = ()  # per shape, its port groups (k, side, length)
+    orbits: dict = field(default_factory=dict)  # multiset -> orbit size, when legs are pooled
 
 
 def _shape_groups(shape: Shape, halves: Sequence[tuple]) -> frozenset:
@@ -324,17 +325,29 @@ def _lengths_connect(groups: Sequence[frozenset]) -> bool:
     return len(seen) == len(groups)
 
 
-def _vertex_data(base: StableCurveGraph, degree: int, genus: int, profiles: Sequence[Profile]) -> list[_Vertex]:
+def _vertex_data(base: StableCurveGraph, degree: int, genus: int, profiles: Sequence[Profile],
+                 fixed: frozenset[int] | None = None) -> list[_Vertex]:
+    """Shapes and local multisets per base vertex.  With ``fixed`` (the
+    branch points that stay labelled: the marked ones), the other simple
+    branch points are pooled: one multiset per orbit, with its size."""
     out = []
+    simple = (2,) + (1,) * (degree - 2)
     for v, spec in enumerate(special_points(base)):
-        legs = tuple(tuple(profiles[s[1] - 1]) for s in spec if s[0] == "leg")
+        labels = [s[1] for s in spec if s[0] == "leg"]
+        legs = tuple(tuple(profiles[j - 1]) for j in labels)
         halves = tuple(s for s in spec if s[0] == "half")
         key = (degree, base.vertex_genera[v], legs, len(halves), genus)
         ends = {(k, side): p for p, (_, k, side) in enumerate(halves)}
         loops = tuple((ends[(k, 0)], ends[(k, 1)]) for k, (a, b) in enumerate(base.nodes) if a == b == v)
-        shapes, multisets = vertex_pieces(*key, loops)
+        if fixed is None:
+            shapes, multisets = vertex_pieces(*key, loops)
+            orbits = {}
+        else:
+            pooled = tuple(p for p, j in enumerate(labels) if legs[p] == simple and j not in fixed)
+            shapes, multisets, sizes = vertex_orbits(*key, loops, pooled)
+            orbits = dict(zip(multisets, sizes))
         out.append(_Vertex(shapes, tuple(multisets), halves,
-                           tuple(_shape_groups(sh, halves) for sh in shapes)))
+                           tuple(_shape_groups(sh, halves) for sh in shapes), orbits))
     return out
 
 
@@ -440,7 +453,7 @@ def _mark_assignments(base: StableCurveGraph, vertex: Sequence[int], shapes: Seq
 
 
 def _choice_entries(base: StableCurveGraph, data: list[_Vertex], choice, genus: int,
-                    marks: Sequence[tuple[int, int]] = ()) -> list[TallyEntry]:
+                    marks: Sequence[tuple[int, int]] = (), orbit: int = 1) -> list[TallyEntry]:
     if not _lengths_connect([data[v].groups[s] for v, m in enumerate(choice) for s in m]):
         return []
     vertex = [v for v, m in enumerate(choice) for _ in m]
@@ -453,7 +466,7 @@ def _choice_entries(base: StableCurveGraph, data: list[_Vertex], choice, genus: 
         raise IdentityError(f"Riemann-Hurwitz fails for the pieces {shapes} over {base.notation}")
     mult = prod(x for p in profiles for x in p)
     sizes = [classes.count(c) for c in range(classes[-1] + 1)]
-    coeff = Fraction(mult) * prod(s.hurwitz for s in shapes) / prod(factorial(n) for n in sizes)
+    coeff = Fraction(mult * orbit) * prod(s.hurwitz for s in shapes) / prod(factorial(n) for n in sizes)
     counts = count_matchings(base.nodes, vertex, [s.halves for s in shapes], classes)
     if not marks:
         return [TallyEntry(profiles, genera, key, coeff * n) for key, n in sorted(counts.items())]
@@ -495,10 +508,11 @@ def tally_stratum(problem: HurwitzProblem, base: BaseStratum) -> TypeTally:
     """
     _check_base(problem, base.graph)
     profiles = [tuple(p) for p in problem.profiles]
-    data = _vertex_data(base.graph, problem.degree, problem.genus, profiles)
+    data = _vertex_data(base.graph, problem.degree, problem.genus, profiles, frozenset(j for j, _ in problem.marks))
     entries: list[TallyEntry] = []
     for choice in _choices(base.graph, data, problem.genus):
-        entries.extend(_choice_entries(base.graph, data, choice, problem.genus, problem.marks))
+        orbit = prod(vd.orbits[m] for vd, m in zip(data, choice))
+        entries.extend(_choice_entries(base.graph, data, choice, problem.genus, problem.marks, orbit))
     return TypeTally(base, tuple(entries), problem_hurwitz(problem))
 
 
