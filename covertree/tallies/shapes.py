@@ -20,10 +20,61 @@ whose genera add up to at most ``max_genus``: a connected source of genus
 number of shapes small for large degree (over a genus-0 component a piece
 unramified at the legs is a cyclic cover, ``alpha = (k), (k)``).
 
+Pooled simple legs
+------------------
+Over a base vertex with ``n`` simple legs (profile ``(2, 1, ..., 1)``) a
+piece uses each of them (sub-profile ``(2, 1, ...)``) or not (``(1, ...)``),
+and every simple leg is used by exactly one piece; so the shapes are one per
+subset of those legs and the local multisets are set partitions of them
+(tetragonal covers of genus 6: 16 simple legs on one vertex of the divisor
+``2|16``, and ``2^15 - 1`` splittings into two double covers alone).
+:func:`vertex_orbits` lists them up to
+the group ``S`` of permutations of a chosen set of simple legs (the *pooled*
+legs: in :mod:`covertree.tallies.types`, the simple legs of no marked
+branch point), with the number of labelled multisets in each orbit.
+
+A pooled shape (:func:`pooled_candidates`) keeps the sub-profiles at the
+other legs and records only the number ``c`` of pooled legs it uses, as a
+last pseudo-leg ``(2,) * c``, a slot of need ``n`` in the slot search below
+(its ramification ``c`` enters Riemann-Hurwitz).  Forgetting which pooled
+legs each piece uses maps a labelled multiset onto a multiset of pooled
+shapes, and the fibres are the ``S``-orbits: ``S`` keeps the pooled shapes,
+and two labelled multisets over the same pooled multiset differ by the
+permutation carrying the legs of each piece to those of its partner.  The
+fibre over pooled pieces ``P_1, ..., P_r`` using ``c_1, ..., c_r`` pooled
+legs has
+
+    n! / (prod_i c_i! * prod_P m_P!)
+
+elements (:func:`orbit_size`), ``m_P`` the multiplicity of each pooled shape
+``P`` with ``c > 0``: the ordered assignments of the pooled legs to the
+pieces with these numbers are counted by the multinomial coefficient, two
+give the same multiset exactly when they differ by permuting pieces of equal
+pooled shape, and that permutation group acts freely on them, since pieces
+with ``c > 0`` get disjoint non-empty sets of legs (pieces with ``c = 0``
+are left as they are).  One labelled multiset stands for its orbit
+(:func:`representative`: the pooled legs given out in order).  A
+permutation of legs of equal profile changes no degree, genus, profile at a
+half-edge point, connected Hurwitz number (symmetric in its branch points)
+or sub-profile at a leg that is not pooled, and it carries equal shapes to
+equal shapes; so the tallies of a choice of multisets are those of its
+representatives with the pieces renumbered.  The groups of different
+vertices act independently, and balance across a node reads only profiles
+at half-edge points, so a choice of one representative per vertex stands
+for the product of their orbit sizes of choices; summing the
+representatives' tallies with that factor gives every tally read up to
+renumbering of pieces (totals, source graphs, node profiles, pullbacks,
+locus classes) exactly as the labelled sum does.
+
 References
 ----------
 A. Hurwitz, "Uber Riemann'sche Flachen mit gegebenen Verzweigungspunkten",
 Mathematische Annalen 39 (1891): the Riemann-Hurwitz formula
+
+R. P. Stanley, *Enumerative Combinatorics*, Vol. 1, 2nd ed., Cambridge
+University Press (2012), section 1.9 (the twelvefold way): multinomial
+coefficients, set partitions counted by the sizes of their blocks; the
+orbit-stabiliser count behind the pooled multisets is classical.
 
 Examples
 --------

@@ -73,6 +73,12 @@ with stabilisers ``Aut T``, so ``sum_T 1/|Aut T| = |X| / (|S| |L|)``, and
 grouped by source graph, and the matchings are counted by orbits of
 automorphisms of partial matchings (:mod:`covertree.tallies.gluing`), so the
 work grows with the number of types, never with the number of covers.
+The simple branch points of no marked leg are pooled at each base vertex
+(:func:`covertree.tallies.shapes.vertex_orbits`): the local multisets that
+differ only by which of them each piece carries form one orbit, summed once
+with the orbit size as a factor, so a vertex with many simple legs costs the
+number of ways to share their count among the pieces, not the number of set
+partitions of the legs.
 :func:`iter_types` also lists the types themselves with ``|Aut T|``
 (canonical forms of coloured graphs), which the tests compare with the fast
 sum.
@@ -137,7 +143,9 @@ Profile = tuple[int, ...]
 @dataclass(frozen=True)
 class TallyEntry:
     """The summed weight of the covers with one source graph on one list of
-    pieces (raw data, piece numbering arbitrary within a class).
+    pieces, or on every list in its orbit under permutations of the pooled
+    simple branch points (:mod:`covertree.tallies.shapes`; raw data, read
+    up to renumbering of the pieces).
 
     Attributes
     ----------
@@ -287,7 +295,7 @@ class _Vertex:
     multisets: tuple[tuple[int, ...], ...]
     halves: tuple[tuple, ...]  # per half point of the vertex: ("half", k, side)
     groups: tuple[frozenset, ...] = ()  # per shape, its port groups (k, side, length)
-    orbits: dict = field(default_factory=dict)  # multiset -> orbit size, when legs are pooled
+    orbits: dict[tuple[int, ...], int] = field(default_factory=dict)  # multiset -> orbit size (pooled legs)
 
 
 def _shape_groups(shape: Shape, halves: Sequence[tuple]) -> frozenset:
