@@ -306,15 +306,23 @@ def representative(pieces: Sequence[Shape], n_legs: int, pooled: tuple[int, ...]
     [((2, 1), (3,), (2, 1))]
     """
     out, given = [], 0
-    where = {j: n for n, j in enumerate(pooled)}
     for piece in pieces:
-        k, c, kept = piece.degree, len(piece.legs[-1]), iter(piece.legs[:-1])
-        legs = tuple(next(kept) if j not in where else
-                     (2,) + (1,) * (k - 2) if given <= where[j] < given + c else (1,) * k
-                     for j in range(n_legs))
-        given += c
-        out.append(Shape(k, legs, piece.halves, piece.genus, piece.vertex_genus))
+        out.append(_labelled(piece, piece.vertex_genus, n_legs, pooled, given))
+        given += len(piece.legs[-1])
     return tuple(out)
+
+
+@lru_cache(maxsize=None)
+def _labelled(piece: Shape, vertex_genus: int, n_legs: int, pooled: tuple[int, ...], given: int) -> Shape:
+    """The labelled shape of a pooled piece carrying the pooled legs number
+    ``given, given + 1, ...``; one object per shape, so that its weight is
+    computed once (``vertex_genus`` is in the key: shapes compare without it)."""
+    k, c, kept = piece.degree, len(piece.legs[-1]), iter(piece.legs[:-1])
+    where = {j: n for n, j in enumerate(pooled)}
+    legs = tuple(next(kept) if j not in where else
+                 (2,) + (1,) * (k - 2) if given <= where[j] < given + c else (1,) * k
+                 for j in range(n_legs))
+    return Shape(k, legs, piece.halves, piece.genus, vertex_genus)
 
 
 def orbit_size(pieces: Sequence[Shape], n_pooled: int) -> int:
