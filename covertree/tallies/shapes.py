@@ -97,7 +97,7 @@ from collections.abc import Sequence
 from dataclasses import dataclass, field
 from fractions import Fraction
 from functools import cached_property, lru_cache
-from math import factorial
+from math import factorial, prod
 from itertools import product
 
 from covertree.hurwitz.numbers import connected_hurwitz
@@ -336,13 +336,18 @@ def orbit_size(pieces: Sequence[Shape], n_pooled: int) -> int:
     >>> orbit_size(two * 2, 4)    # {ab, cd}, {ac, bd}, {ad, bc}
     3
     """
-    ways = factorial(n_pooled)
-    for piece in pieces:
-        ways //= factorial(len(piece.legs[-1]))
-    for piece, m in Counter(pieces).items():
-        if piece.legs[-1]:
-            ways //= factorial(m)
-    return ways
+    return _orbit_size([len(p.legs[-1]) for p in pieces], pieces, n_pooled)
+
+
+def _orbit_size(used: Sequence[int], keys: Sequence, n_pooled: int) -> int:
+    """:func:`orbit_size` from the pooled legs ``used`` by each piece and a
+    key per piece equal exactly for equal pooled shapes."""
+    if n_pooled < 2:
+        return 1
+    denominator = prod(factorial(c) for c in used)
+    for m in Counter(k for k, c in zip(keys, used) if c).values():
+        denominator *= factorial(m)
+    return factorial(n_pooled) // denominator
 
 
 def vertex_orbits(degree: int, vertex_genus: int, leg_profiles: tuple[Profile, ...], n_halves: int,
@@ -369,17 +374,55 @@ def vertex_orbits(degree: int, vertex_genus: int, leg_profiles: tuple[Profile, .
     plan = _SlotPlan(candidates, kept + ((2,) * len(pooled),), loops, pooled=True)
     found: list[tuple[int, ...]] = []
     plan.cover(0, -1, degree, max_genus, 0, [], found)
-    orbits: dict[tuple[Shape, ...], int] = {}
+    used = [len(s.legs[-1]) for s in candidates]
+    labels = _Labels(candidates, len(leg_profiles), pooled)
+    rows = []
     for m in found:
         if plan.early or _balanced(candidates, m, loops):
-            pieces = [candidates[i] for i in sorted(m)]
-            labelled = representative(pieces, len(leg_profiles), pooled)
-            if all(s.hurwitz for s in labelled):
-                orbits[tuple(sorted(labelled))] = orbit_size(pieces, len(pooled))
-    shapes = sorted({s for m in orbits for s in m})
-    index = {s: n for n, s in enumerate(shapes)}
-    rows = sorted((tuple(index[s] for s in m), n) for m, n in orbits.items())
-    return tuple(shapes), [m for m, _ in rows], [n for _, n in rows]
+            m = sorted(m)
+            ids = labels.of(m, used)
+            if ids is not None:
+                rows.append((ids, _orbit_size([used[i] for i in m], m, len(pooled))))
+    return labels.ordered(rows)
+
+
+class _Labels:
+    """The labelled shapes of one vertex's representatives, numbered as met
+    (a number per pooled candidate and first pooled leg), with their weights'
+    being nonzero: equal labelled shapes get one number, so no shape is
+    hashed per multiset."""
+
+    def __init__(self, candidates: Sequence[Shape], n_legs: int, pooled: tuple[int, ...]) -> None:
+        self.candidates, self.n_legs, self.pooled = candidates, n_legs, pooled
+        self.number: dict[tuple[int, int], int] = {}
+        self.shapes: list[Shape] = []
+        self.weighs: list[bool] = []
+
+    def of(self, multiset: Sequence[int], used: Sequence[int]) -> tuple[int, ...] | None:
+        """The numbers of the representative's pieces, ``None`` if one weighs 0."""
+        out, given = [], 0
+        for i in multiset:
+            key = (i, given if used[i] else 0)
+            if key not in self.number:
+                piece = self.candidates[i]
+                shape = _labelled(piece, piece.vertex_genus, self.n_legs, self.pooled, key[1])
+                self.number[key] = len(self.shapes)
+                self.shapes.append(shape)
+                self.weighs.append(bool(shape.hurwitz))
+            n = self.number[key]
+            if not self.weighs[n]:
+                return None
+            out.append(n)
+            given += used[i]
+        return tuple(out)
+
+    def ordered(self, rows: list[tuple[tuple[int, ...], int]]
+                ) -> tuple[tuple[Shape, ...], list[tuple[int, ...]], list[int]]:
+        """``(shapes, multisets, sizes)`` in the form of :func:`vertex_pieces`."""
+        present = sorted({n for ids, _ in rows for n in ids}, key=lambda n: self.shapes[n])
+        rank = {n: r for r, n in enumerate(present)}
+        out = sorted((tuple(sorted(rank[n] for n in ids)), size) for ids, size in rows)
+        return tuple(self.shapes[n] for n in present), [m for m, _ in out], [size for _, size in out]
 
 
 def _balanced(shapes: Sequence["Shape"], multiset: Sequence[int], loops: tuple[tuple[int, int], ...]) -> bool:

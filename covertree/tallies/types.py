@@ -74,7 +74,8 @@ grouped by source graph, and the matchings are counted by orbits of
 automorphisms of partial matchings (:mod:`covertree.tallies.gluing`), so the
 work grows with the number of types, never with the number of covers.
 The simple branch points of no marked leg are pooled at each base vertex
-(:func:`covertree.tallies.shapes.vertex_orbits`): the local multisets that
+(:func:`covertree.tallies.shapes.vertex_orbits`; not for a marked source
+that stabilisation contracts, see :func:`_kept_labelled`): the local multisets that
 differ only by which of them each piece carries form one orbit, summed once
 with the orbit size as a factor, so a vertex with many simple legs costs the
 number of ways to share their count among the pieces, not the number of set
@@ -295,7 +296,7 @@ class _Vertex:
     multisets: tuple[tuple[int, ...], ...]
     halves: tuple[tuple, ...]  # per half point of the vertex: ("half", k, side)
     groups: tuple[frozenset, ...] = ()  # per shape, its port groups (k, side, length)
-    orbits: dict[tuple[int, ...], int] = field(default_factory=dict)  # multiset -> orbit size (pooled legs)
+    orbits: dict[tuple[int, ...], int] = field(default_factory=dict)  # multiset -> orbit size (1 unpooled)
 
 
 def _shape_groups(shape: Shape, halves: Sequence[tuple]) -> frozenset:
@@ -337,7 +338,8 @@ def _vertex_data(base: StableCurveGraph, degree: int, genus: int, profiles: Sequ
                  fixed: frozenset[int] | None = None) -> list[_Vertex]:
     """Shapes and local multisets per base vertex.  With ``fixed`` (the
     branch points that stay labelled: the marked ones), the other simple
-    branch points are pooled: one multiset per orbit, with its size."""
+    branch points are pooled: one multiset per orbit, with its size;
+    without, every multiset with size 1."""
     out = []
     simple = (2,) + (1,) * (degree - 2)
     for v, spec in enumerate(special_points(base)):
@@ -349,7 +351,7 @@ def _vertex_data(base: StableCurveGraph, degree: int, genus: int, profiles: Sequ
         loops = tuple((ends[(k, 0)], ends[(k, 1)]) for k, (a, b) in enumerate(base.nodes) if a == b == v)
         if fixed is None:
             shapes, multisets = vertex_pieces(*key, loops)
-            orbits = {}
+            orbits = dict.fromkeys(multisets, 1)
         else:
             pooled = tuple(p for p, j in enumerate(labels) if legs[p] == simple and j not in fixed)
             shapes, multisets, sizes = vertex_orbits(*key, loops, pooled)
@@ -493,6 +495,17 @@ def _check_base(problem: HurwitzProblem, graph: StableCurveGraph) -> None:
         )
 
 
+def _kept_labelled(problem: HurwitzProblem) -> frozenset[int] | None:
+    """The branch points kept labelled when the simple ones are pooled: the
+    marked ones; ``None`` (pool nothing) for a marked source contracted by
+    stabilisation (no ``Mbar_{g,n}``), whose leg paths
+    (:func:`covertree.locus.edges.edge_data`) depend on how the pieces are
+    numbered, so that they stay those of the labelled sum."""
+    if problem.marks and not problem.has_source_space:
+        return None
+    return frozenset(j for j, _ in problem.marks)
+
+
 def tally_stratum(problem: HurwitzProblem, base: BaseStratum) -> TypeTally:
     """The tallies over one base stratum, summed over types.
 
@@ -516,7 +529,7 @@ def tally_stratum(problem: HurwitzProblem, base: BaseStratum) -> TypeTally:
     """
     _check_base(problem, base.graph)
     profiles = [tuple(p) for p in problem.profiles]
-    data = _vertex_data(base.graph, problem.degree, problem.genus, profiles, frozenset(j for j, _ in problem.marks))
+    data = _vertex_data(base.graph, problem.degree, problem.genus, profiles, _kept_labelled(problem))
     entries: list[TallyEntry] = []
     for choice in _choices(base.graph, data, problem.genus):
         orbit = prod(vd.orbits[m] for vd, m in zip(data, choice))

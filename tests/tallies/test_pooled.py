@@ -171,3 +171,17 @@ def test_pooled_tallies_equal_labelled_ones_random(drawn):
         problem = None
     assume(problem is not None and len(problem.profiles) <= (6 if codim == 1 else 5))
     assert_pooling_exact(problem, codim)
+
+
+def test_contracted_marked_source_is_not_pooled():
+    """Genus 0 with one marked leg: stabilisation contracts the whole source,
+    and the leg paths of the locus layer then depend on how the pieces are
+    numbered; such problems keep the labelled sum, and src^* psi_1 integrals
+    stay those of the list engine."""
+    from covertree.locus.integrals import cover_space_integrals
+    from covertree.locus.monomial import Monomial
+
+    problem = HurwitzProblem.build(4, 0, genus=0, profiles=["3,1"], marks=["1:1"])
+    assert_pooling_exact(problem, 1)
+    monomials = [(Monomial.parse("psi_1", "source"), Monomial.parse(f"psi_{j}", "target")) for j in (1, 2, 5)]
+    assert cover_space_integrals(problem, monomials, "types") == cover_space_integrals(problem, monomials, "list")
