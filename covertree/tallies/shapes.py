@@ -28,10 +28,10 @@ and every simple leg is used by exactly one piece; so the shapes are one per
 subset of those legs and the local multisets are set partitions of them
 (tetragonal covers of genus 6: 16 simple legs on one vertex of the divisor
 ``2|16``, and ``2^15 - 1`` splittings into two double covers alone).
-:func:`vertex_orbits` lists them up to
-the group ``S`` of permutations of a chosen set of simple legs (the *pooled*
-legs: in :mod:`covertree.tallies.types`, the simple legs of no marked
-branch point), with the number of labelled multisets in each orbit.
+:func:`vertex_orbits` lists them up to the group ``S`` of permutations of a
+chosen set of simple legs (the *pooled* legs: in
+:mod:`covertree.tallies.types`, the simple legs of no marked branch point),
+with the number of labelled multisets in each orbit.
 
 A pooled shape (:func:`pooled_candidates`) keeps the sub-profiles at the
 other legs and records only the number ``c`` of pooled legs it uses, as a
@@ -52,19 +52,21 @@ pieces with these numbers are counted by the multinomial coefficient, two
 give the same multiset exactly when they differ by permuting pieces of equal
 pooled shape, and that permutation group acts freely on them, since pieces
 with ``c > 0`` get disjoint non-empty sets of legs (pieces with ``c = 0``
-are left as they are).  One labelled multiset stands for its orbit
-(:func:`representative`: the pooled legs given out in order).  A
-permutation of legs of equal profile changes no degree, genus, profile at a
-half-edge point, connected Hurwitz number (symmetric in its branch points)
-or sub-profile at a leg that is not pooled, and it carries equal shapes to
-equal shapes; so the tallies of a choice of multisets are those of its
+are left as they are).  One labelled multiset stands for its orbit (the
+pooled legs given out in order, the first ``c_1`` to the first piece and so
+on).  A permutation of legs of equal profile changes no degree, genus,
+profile at a half-edge point, connected Hurwitz number (symmetric in its
+branch points) or sub-profile at a leg that is not pooled, and it carries
+equal shapes to equal shapes; so the tallies of a choice of multisets are those of its
 representatives with the pieces renumbered.  The groups of different
 vertices act independently, and balance across a node reads only profiles
 at half-edge points, so a choice of one representative per vertex stands
 for the product of their orbit sizes of choices; summing the
 representatives' tallies with that factor gives every tally read up to
 renumbering of pieces (totals, source graphs, node profiles, pullbacks,
-locus classes) exactly as the labelled sum does.
+locus classes) exactly as the labelled sum does.  (The leg paths of a
+marked source that stabilisation contracts whole depend on the numbering;
+:mod:`covertree.tallies.types` pools nothing there.)
 
 References
 ----------
@@ -104,7 +106,7 @@ from covertree.hurwitz.numbers import connected_hurwitz
 from covertree.symmetric.partitions import partitions_of, sub_partitions
 
 __all__ = ["Shape", "piece_shapes", "candidate_shapes", "local_multisets", "vertex_pieces",
-           "pooled_candidates", "representative", "orbit_size", "vertex_orbits"]
+           "pooled_candidates", "orbit_size", "vertex_orbits"]
 
 Profile = tuple[int, ...]
 
@@ -271,7 +273,8 @@ def pooled_candidates(degree: int, vertex_genus: int, kept: tuple[Profile, ...],
     ``n_pooled`` more simple legs taken up to permutation, sorted: a shape
     using ``c`` of the pooled legs has the pseudo-leg ``(2,) * c`` after its
     sub-profiles at ``kept`` (its weight is not a Hurwitz number: only the
-    shapes of :func:`representative` are weighed).
+    labelled shapes of the representatives in :func:`vertex_orbits` are
+    weighed).
 
     A piece of degree 1 uses no simple leg, and one of degree above
     ``degree - 2`` uses every one (the other pieces have at most ``degree -
@@ -293,55 +296,18 @@ def pooled_candidates(degree: int, vertex_genus: int, kept: tuple[Profile, ...],
     return tuple(sorted(out))
 
 
-def representative(pieces: Sequence[Shape], n_legs: int, pooled: tuple[int, ...]) -> tuple[Shape, ...]:
-    """The labelled pieces of one local multiset in the orbit of ``pieces``
-    (candidates of :func:`pooled_candidates`, in order): the pooled legs, at
-    the positions ``pooled`` among the ``n_legs`` legs, are given out in
-    order, the first ``c_1`` to the first piece and so on.
+def orbit_size(used: Sequence[int], keys: Sequence, n_pooled: int) -> int:
+    """The number of labelled local multisets in the orbit of one whose
+    pieces use ``used[i]`` of the ``n_pooled`` pooled legs, ``keys[i]``
+    equal exactly for equal pooled shapes: ``n! / (prod_i c_i! * prod_P
+    m_P!)``, ``m_P`` the multiplicity of each pooled shape ``P`` with ``c >
+    0`` (module docstring).
 
-    >>> pieces = pooled_candidates(3, 0, ((3,),), 2, 0, 0)
-    >>> [(s.degree, s.legs) for s in pieces]
-    [(3, ((3,), (2, 2)))]
-    >>> [s.legs for s in representative(pieces, 3, (0, 2))]
-    [((2, 1), (3,), (2, 1))]
-    """
-    out, given = [], 0
-    for piece in pieces:
-        out.append(_labelled(piece, piece.vertex_genus, n_legs, pooled, given))
-        given += len(piece.legs[-1])
-    return tuple(out)
-
-
-@lru_cache(maxsize=None)
-def _labelled(piece: Shape, vertex_genus: int, n_legs: int, pooled: tuple[int, ...], given: int) -> Shape:
-    """The labelled shape of a pooled piece carrying the pooled legs number
-    ``given, given + 1, ...``; one object per shape, so that its weight is
-    computed once (``vertex_genus`` is in the key: shapes compare without it)."""
-    k, c, kept = piece.degree, len(piece.legs[-1]), iter(piece.legs[:-1])
-    where = {j: n for n, j in enumerate(pooled)}
-    legs = tuple(next(kept) if j not in where else
-                 (2,) + (1,) * (k - 2) if given <= where[j] < given + c else (1,) * k
-                 for j in range(n_legs))
-    return Shape(k, legs, piece.halves, piece.genus, vertex_genus)
-
-
-def orbit_size(pieces: Sequence[Shape], n_pooled: int) -> int:
-    """The number of labelled local multisets with these pooled pieces:
-    ``n! / (prod_i c_i! * prod_P m_P!)``, ``c_i`` the pooled legs of piece
-    ``i`` and ``m_P`` the multiplicity of each pooled shape ``P`` with
-    ``c > 0`` (module docstring).
-
-    >>> pieces = pooled_candidates(4, 0, (), 4, 0, 2)
-    >>> two = [s for s in pieces if s.degree == 2 and s.legs == ((2, 2),)]
-    >>> orbit_size(two * 2, 4)    # {ab, cd}, {ac, bd}, {ad, bc}
+    >>> orbit_size([2, 2], ["P", "P"], 4)    # {ab, cd}, {ac, bd}, {ad, bc}
     3
+    >>> orbit_size([2, 2, 0, 0], ["P", "Q", "R", "R"], 4)    # the legs of P: 6 choices
+    6
     """
-    return _orbit_size([len(p.legs[-1]) for p in pieces], pieces, n_pooled)
-
-
-def _orbit_size(used: Sequence[int], keys: Sequence, n_pooled: int) -> int:
-    """:func:`orbit_size` from the pooled legs ``used`` by each piece and a
-    key per piece equal exactly for equal pooled shapes."""
     if n_pooled < 2:
         return 1
     denominator = prod(factorial(c) for c in used)
@@ -350,13 +316,33 @@ def _orbit_size(used: Sequence[int], keys: Sequence, n_pooled: int) -> int:
     return factorial(n_pooled) // denominator
 
 
+@lru_cache(maxsize=None)
+def _labelled(piece: Shape, vertex_genus: int, n_legs: int, pooled: tuple[int, ...], given: int) -> Shape:
+    """The labelled shape of a pooled piece carrying the pooled legs number
+    ``given, given + 1, ...`` (the legs at the positions ``pooled`` among the
+    ``n_legs`` legs); one object per shape, so that its weight is computed
+    once (``vertex_genus`` is in the key: shapes compare without it).
+
+    >>> [piece] = pooled_candidates(3, 0, ((3,),), 2, 0, 0)
+    >>> piece.legs, _labelled(piece, 0, 3, (0, 2), 0).legs
+    (((3,), (2, 2)), ((2, 1), (3,), (2, 1)))
+    """
+    k, c, kept = piece.degree, len(piece.legs[-1]), iter(piece.legs[:-1])
+    where = {j: n for n, j in enumerate(pooled)}
+    legs = tuple(next(kept) if j not in where else
+                 (2,) + (1,) * (k - 2) if given <= where[j] < given + c else (1,) * k
+                 for j in range(n_legs))
+    return Shape(k, legs, piece.halves, piece.genus, vertex_genus)
+
+
 def vertex_orbits(degree: int, vertex_genus: int, leg_profiles: tuple[Profile, ...], n_halves: int,
                   max_genus: int, loops: tuple[tuple[int, int], ...] = (), pooled: tuple[int, ...] = ()
                   ) -> tuple[tuple[Shape, ...], list[tuple[int, ...]], list[int]]:
     """The local multisets of :func:`vertex_pieces` up to permutations of the
     simple legs at the positions ``pooled``: ``(shapes, multisets, sizes)``,
-    one labelled multiset per orbit (:func:`representative`) with its orbit
-    size, in the order and form of :func:`vertex_pieces`.
+    one labelled multiset per orbit (the pooled legs given out in order, the
+    first ``c_1`` to the first piece and so on) with its orbit size
+    (:func:`orbit_size`), in the order and form of :func:`vertex_pieces`.
 
     Degree 4 over ``P^1`` with four simple points, genus at most 1: a double
     cover and two sheets, a trigonal cover and a sheet (one orbit each), or
@@ -382,7 +368,7 @@ def vertex_orbits(degree: int, vertex_genus: int, leg_profiles: tuple[Profile, .
             m = sorted(m)
             ids = labels.of(m, used)
             if ids is not None:
-                rows.append((ids, _orbit_size([used[i] for i in m], m, len(pooled))))
+                rows.append((ids, orbit_size([used[i] for i in m], m, len(pooled))))
     return labels.ordered(rows)
 
 
