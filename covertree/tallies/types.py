@@ -75,11 +75,11 @@ automorphisms of partial matchings (:mod:`covertree.tallies.gluing`), so the
 work grows with the number of types, never with the number of covers.
 The simple branch points of no marked leg are pooled at each base vertex
 (:func:`covertree.tallies.shapes.vertex_orbits`; not for a marked source
-that stabilisation contracts, see :func:`_kept_labelled`): the local multisets that
-differ only by which of them each piece carries form one orbit, summed once
-with the orbit size as a factor, so a vertex with many simple legs costs the
-number of ways to share their count among the pieces, not the number of set
-partitions of the legs.
+that stabilisation contracts, see :func:`_kept_labelled`): the local
+multisets that differ only by which of them each piece carries form one
+orbit, summed once with the orbit size as a factor, so a vertex with many
+simple legs costs the number of ways to share their count among the pieces,
+not the number of set partitions of the legs.
 :func:`iter_types` also lists the types themselves with ``|Aut T|``
 (canonical forms of coloured graphs), which the tests compare with the fast
 sum.
