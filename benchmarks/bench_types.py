@@ -7,8 +7,12 @@ Prints one line per measurement, each run in a fresh process (cold caches):
   2 [q^d] F_2 (Dijkgraaf 1995, OEIS A170991);
 * the ratio list engine / type engine at d = 6 and 7 (same problem);
 * genus-0 targets with simple branching, trigonal and tetragonal covers of
-  genus 4 to 6 over every codimension-one stratum (orbits), with the time to
-  select the strata shown apart (it is the same for both engines).
+  genus 4 to 6 and pentagonal ones of genus 4 and 5 over every
+  codimension-one stratum (orbits), with the time to select the strata shown
+  apart (it is the same for both engines).  Tetragonal genus 6 has 18 simple
+  points, 16 of them on one vertex of the divisors ``2|16``: the local
+  multisets there are set partitions of the legs, listed up to permutations
+  of the simple legs (:func:`covertree.tallies.shapes.vertex_orbits`).
 
 ``python benchmarks/bench_types.py quick`` skips the slowest measurements.
 """
@@ -71,7 +75,7 @@ def main(quick: bool = False) -> None:
         _, t_types, _, entries, _ = _run(d, 1, 2)
         print(f"genus 2 over an elliptic curve, d = {d}, codim <= 1: list {t_list:.2f} s ({covers} covers), "
               f"types {t_types:.3f} s ({entries} entries), ratio {t_list / t_types:.0f}", flush=True)
-    cases = [(3, 4), (3, 5), (3, 6), (4, 4), (4, 5)] + ([] if quick else [(4, 6)])
+    cases = [(3, 4), (3, 5), (3, 6), (4, 4), (4, 5), (4, 6), (5, 4)] + ([] if quick else [(5, 5)])
     for d, g in cases:
         t_strata, t, n, size, value = _run(d, 0, g)
         print(f"genus {g}, degree {d} over P^1 ({2 * g + 2 * d - 2} simple points), every divisor "

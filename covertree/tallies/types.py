@@ -73,6 +73,13 @@ with stabilisers ``Aut T``, so ``sum_T 1/|Aut T| = |X| / (|S| |L|)``, and
 grouped by source graph, and the matchings are counted by orbits of
 automorphisms of partial matchings (:mod:`covertree.tallies.gluing`), so the
 work grows with the number of types, never with the number of covers.
+The simple branch points of no marked leg are pooled at each base vertex
+(:func:`covertree.tallies.shapes.vertex_orbits`; not for a marked source
+that stabilisation contracts, see :func:`_kept_labelled`): the local
+multisets that differ only by which of them each piece carries form one
+orbit, summed once with the orbit size as a factor, so a vertex with many
+simple legs costs the number of ways to share their count among the pieces,
+not the number of set partitions of the legs.
 :func:`iter_types` also lists the types themselves with ``|Aut T|``
 (canonical forms of coloured graphs), which the tests compare with the fast
 sum.
@@ -110,7 +117,7 @@ instance J. C. Baez and J. Dolan, *From finite sets to Feynman diagrams*
 from __future__ import annotations
 
 from collections.abc import Iterator, Sequence
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from fractions import Fraction
 from functools import lru_cache
 from collections import Counter
@@ -127,7 +134,7 @@ from covertree.monodromy.local import special_points
 from covertree.stabilisation.stabilise import Stabilised, smoothing_orders, stabilise
 from covertree.strata.base import BaseStratum
 from covertree.tallies.gluing import count_matchings
-from covertree.tallies.shapes import Shape, vertex_pieces
+from covertree.tallies.shapes import Shape, vertex_orbits, vertex_pieces
 
 __all__ = ["TallyEntry", "TypeTally", "TallyCatalogue", "CoverType", "tally_stratum", "tally_catalogue", "iter_types"]
 
@@ -137,7 +144,9 @@ Profile = tuple[int, ...]
 @dataclass(frozen=True)
 class TallyEntry:
     """The summed weight of the covers with one source graph on one list of
-    pieces (raw data, piece numbering arbitrary within a class).
+    pieces, or on every list in its orbit under permutations of the pooled
+    simple branch points (:mod:`covertree.tallies.shapes`; raw data, read
+    up to renumbering of the pieces).
 
     Attributes
     ----------
@@ -287,6 +296,7 @@ class _Vertex:
     multisets: tuple[tuple[int, ...], ...]
     halves: tuple[tuple, ...]  # per half point of the vertex: ("half", k, side)
     groups: tuple[frozenset, ...] = ()  # per shape, its port groups (k, side, length)
+    orbits: dict[tuple[int, ...], int] = field(default_factory=dict)  # multiset -> orbit size (1 unpooled)
 
 
 def _shape_groups(shape: Shape, halves: Sequence[tuple]) -> frozenset:
@@ -324,17 +334,30 @@ def _lengths_connect(groups: Sequence[frozenset]) -> bool:
     return len(seen) == len(groups)
 
 
-def _vertex_data(base: StableCurveGraph, degree: int, genus: int, profiles: Sequence[Profile]) -> list[_Vertex]:
+def _vertex_data(base: StableCurveGraph, degree: int, genus: int, profiles: Sequence[Profile],
+                 fixed: frozenset[int] | None = None) -> list[_Vertex]:
+    """Shapes and local multisets per base vertex.  With ``fixed`` (the
+    branch points that stay labelled: the marked ones), the other simple
+    branch points are pooled: one multiset per orbit, with its size;
+    without, every multiset with size 1."""
     out = []
+    simple = (2,) + (1,) * (degree - 2)
     for v, spec in enumerate(special_points(base)):
-        legs = tuple(tuple(profiles[s[1] - 1]) for s in spec if s[0] == "leg")
+        labels = [s[1] for s in spec if s[0] == "leg"]
+        legs = tuple(tuple(profiles[j - 1]) for j in labels)
         halves = tuple(s for s in spec if s[0] == "half")
         key = (degree, base.vertex_genera[v], legs, len(halves), genus)
         ends = {(k, side): p for p, (_, k, side) in enumerate(halves)}
         loops = tuple((ends[(k, 0)], ends[(k, 1)]) for k, (a, b) in enumerate(base.nodes) if a == b == v)
-        shapes, multisets = vertex_pieces(*key, loops)
+        if fixed is None:
+            shapes, multisets = vertex_pieces(*key, loops)
+            orbits = dict.fromkeys(multisets, 1)
+        else:
+            pooled = tuple(p for p, j in enumerate(labels) if legs[p] == simple and j not in fixed)
+            shapes, multisets, sizes = vertex_orbits(*key, loops, pooled)
+            orbits = dict(zip(multisets, sizes))
         out.append(_Vertex(shapes, tuple(multisets), halves,
-                           tuple(_shape_groups(sh, halves) for sh in shapes)))
+                           tuple(_shape_groups(sh, halves) for sh in shapes), orbits))
     return out
 
 
@@ -440,7 +463,7 @@ def _mark_assignments(base: StableCurveGraph, vertex: Sequence[int], shapes: Seq
 
 
 def _choice_entries(base: StableCurveGraph, data: list[_Vertex], choice, genus: int,
-                    marks: Sequence[tuple[int, int]] = ()) -> list[TallyEntry]:
+                    marks: Sequence[tuple[int, int]] = (), orbit: int = 1) -> list[TallyEntry]:
     if not _lengths_connect([data[v].groups[s] for v, m in enumerate(choice) for s in m]):
         return []
     vertex = [v for v, m in enumerate(choice) for _ in m]
@@ -453,7 +476,7 @@ def _choice_entries(base: StableCurveGraph, data: list[_Vertex], choice, genus: 
         raise IdentityError(f"Riemann-Hurwitz fails for the pieces {shapes} over {base.notation}")
     mult = prod(x for p in profiles for x in p)
     sizes = [classes.count(c) for c in range(classes[-1] + 1)]
-    coeff = Fraction(mult) * prod(s.hurwitz for s in shapes) / prod(factorial(n) for n in sizes)
+    coeff = Fraction(mult * orbit) * prod(s.hurwitz for s in shapes) / prod(factorial(n) for n in sizes)
     counts = count_matchings(base.nodes, vertex, [s.halves for s in shapes], classes)
     if not marks:
         return [TallyEntry(profiles, genera, key, coeff * n) for key, n in sorted(counts.items())]
@@ -470,6 +493,17 @@ def _check_base(problem: HurwitzProblem, graph: StableCurveGraph) -> None:
             f"stratum {graph.notation!r} is not a stratum of Mbar_{{{problem.target_genus},{problem.points}}} "
             f"(genus {problem.target_genus}, legs 1..{problem.points})"
         )
+
+
+def _kept_labelled(problem: HurwitzProblem) -> frozenset[int] | None:
+    """The branch points kept labelled when the simple ones are pooled: the
+    marked ones; ``None`` (pool nothing) for a marked source contracted by
+    stabilisation (no ``Mbar_{g,n}``), whose leg paths
+    (:func:`covertree.locus.edges.edge_data`) depend on how the pieces are
+    numbered, so that they stay those of the labelled sum."""
+    if problem.marks and not problem.has_source_space:
+        return None
+    return frozenset(j for j, _ in problem.marks)
 
 
 def tally_stratum(problem: HurwitzProblem, base: BaseStratum) -> TypeTally:
@@ -495,10 +529,11 @@ def tally_stratum(problem: HurwitzProblem, base: BaseStratum) -> TypeTally:
     """
     _check_base(problem, base.graph)
     profiles = [tuple(p) for p in problem.profiles]
-    data = _vertex_data(base.graph, problem.degree, problem.genus, profiles)
+    data = _vertex_data(base.graph, problem.degree, problem.genus, profiles, _kept_labelled(problem))
     entries: list[TallyEntry] = []
     for choice in _choices(base.graph, data, problem.genus):
-        entries.extend(_choice_entries(base.graph, data, choice, problem.genus, problem.marks))
+        orbit = prod(vd.orbits[m] for vd, m in zip(data, choice))
+        entries.extend(_choice_entries(base.graph, data, choice, problem.genus, problem.marks, orbit))
     return TypeTally(base, tuple(entries), problem_hurwitz(problem))
 
 
