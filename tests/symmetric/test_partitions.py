@@ -88,29 +88,47 @@ def test_parse(text, parts):
 
 @pytest.mark.parametrize(
     "text, message",
-    [("3,,1", "'' is not a part"), ("a", "'a' is not a part"), ("2^", "is not a part"),
-     ("3,0", "parts must be positive"), ("2^0", "repeats a part 0 times"),
-     ("-1", "is not a part"), ("1.5", "is not a part")],
+    [("3,,1", "profile '3,,1': '' is not a part; write positive integers separated by commas, "
+              "e.g. 3,1 or 2,1^3"),
+     (" a ", "profile ' a ': 'a' is not a part; write positive integers separated by commas, "
+             "e.g. 3,1 or 2,1^3"),
+     ("2^", "profile '2^': '2^' is not a part; write positive integers separated by commas, "
+            "e.g. 3,1 or 2,1^3"),
+     ("-1", "profile '-1': '-1' is not a part; write positive integers separated by commas, "
+            "e.g. 3,1 or 2,1^3"),
+     ("1.5", "profile '1.5': '1.5' is not a part; write positive integers separated by commas, "
+             "e.g. 3,1 or 2,1^3"),
+     ("3,0", "profile '3,0': parts must be positive"),
+     ("1, 2^0", "profile '1, 2^0': '2^0' repeats a part 0 times; write a^k with k >= 1")],
 )
 def test_parse_refuses(text, message):
-    with pytest.raises(ProfileError, match=message):
+    with pytest.raises(ProfileError) as err:
         Partition.parse(text)
+    assert str(err.value) == message
 
 
 def test_parse_bounds_the_numbers():
     long = "1" * (MAX_DIGITS + 1)
-    with pytest.raises(ProfileError, match=f"a number of {MAX_DIGITS + 1} digits; at most {MAX_DIGITS}"):
-        Partition.parse(long)
+    for text in (long, f"1^{long}"):
+        with pytest.raises(ProfileError) as err:
+            Partition.parse(text)
+        assert str(err.value) == (f"profile {text!r}: a number of {MAX_DIGITS + 1} digits; "
+                                  f"at most {MAX_DIGITS} allowed")
     # leading zeros are not significant digits
     assert tuple(Partition.parse("0" * (MAX_DIGITS + 5) + "2")) == (2,)
-    with pytest.raises(ProfileError, match="larger than the largest degree"):
-        Partition.parse(f"{MAX_DEGREE + 1}")
-    with pytest.raises(ProfileError, match="larger than the largest degree"):
-        Partition.parse(f"1^{MAX_DEGREE},1")
+    # the largest degree itself is allowed, as a part or as a number of parts
     assert Partition.parse(f"{MAX_DEGREE}").size == MAX_DEGREE
-    # a long text is shown by a window
-    with pytest.raises(ProfileError, match=r"\.\.\. \(61 characters\)"):
-        Partition.parse("1," * 30 + "x")
+    assert len(Partition.parse(f"1^{MAX_DEGREE}")) == MAX_DEGREE
+    for text in (f"{MAX_DEGREE + 1}", f"1^{MAX_DEGREE},1", f"2,1^{MAX_DEGREE}"):
+        with pytest.raises(ProfileError) as err:
+            Partition.parse(text)
+        assert str(err.value) == (f"profile {text!r} is larger than the largest degree covertree handles "
+                                  f"({MAX_DEGREE}; far smaller ones are refused as infeasible)")
+    # a long text is shown by a window of 40 characters and its length
+    text = "1," * 30 + "x"
+    with pytest.raises(ProfileError) as err:
+        Partition.parse(text)
+    assert str(err.value).startswith(f"profile {text[:40]!r}... (61 characters): 'x' is not a part")
 
 
 @pytest.mark.parametrize("mu", [(2, 1, 1), (3, 2, 2, 1), (1, 1, 1, 1), (4, 3), ()])
