@@ -377,9 +377,9 @@ class _Table:
             return True
         if top == m:
             return False
-        fwd, back, g, sign = word[m]
-        if back[y] >= 0:
-            return False
+        # one letter missing: its forward image at x and (the backward scan
+        # stopped there) its backward image at y are both undefined
+        g, sign = word[m][2:]
         if sign < 0:
             x, y = y, x
         return self.define(g, x, y)

@@ -80,3 +80,15 @@ def test_a_refused_degree_names_the_largest_feasible_one():
     check_count(largest, 1, None, [(3,) + (1,) * (largest - 3)], LIMIT)
     with pytest.raises(TooLargeError):
         check_count(largest + 1, 1, None, [(3,) + (1,) * (largest - 2)], LIMIT)
+
+
+def test_the_genus_hint_follows_the_engine_of_an_elliptic_target():
+    # degree 40 over an elliptic curve, simple points only: the hint is the
+    # largest genus the guard itself lets through at this degree
+    line = _refusal(40, 1, 60_000, [], None)
+    assert line.startswith("genus 60000 needs 119998 branch points at degree 40; at most 100000 allowed; "
+                           "the largest feasible genus at degree 40 is ")
+    largest = int(line.rsplit(" ", 1)[1])
+    check_count(40, 1, largest, [], LIMIT)
+    with pytest.raises(TooLargeError):
+        check_count(40, 1, largest + 1, [], LIMIT)

@@ -102,3 +102,18 @@ def test_legs_over_a_branch_point_with_their_labels():
     assert legs_over(legs, 2) == [(2, 3), (3, 1)]
     assert legs_over(legs, 1) == [(1, 2)]
     assert legs_over(legs, 4) == []
+
+
+def test_a_point_named_then_marked_in_full_counts_both():
+    # 1:2 asks for one point of index 2, then 1 for both: three of the two
+    with pytest.raises(MarkError) as info:
+        legs_from_specs([(2, 2, 1)], ["1:2", "1"])
+    assert str(info.value) == ("marks ask for 3 points of index 2 over branch point 1; "
+                               "its profile 2,2,1 has 2")
+
+
+def test_an_unramified_point_cannot_be_marked_in_full():
+    with pytest.raises(MarkError) as info:
+        legs_from_specs([(2, 2, 1), (1, 1, 1, 1, 1)], ["2"])
+    assert str(info.value) == ("mark '2': branch point 2 is unramified (profile 1,1,1,1,1); "
+                               "mark its preimages with 2:1 or 2:1^c")

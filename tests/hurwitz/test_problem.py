@@ -5,8 +5,9 @@ from __future__ import annotations
 
 import pytest
 
-from covertree.errors import ProblemError
+from covertree.errors import ProblemError, ProfileError
 from covertree.hurwitz.problem import HurwitzProblem
+from covertree.symmetric.partitions import Partition
 
 
 @pytest.mark.parametrize("kwargs, message", [
@@ -33,3 +34,35 @@ def test_json_shape_of_a_problem():
     # three 3-cycles over P^1: 2g - 2 = -6 + 6, genus 1
     p = HurwitzProblem.build(3, 0, profiles=["3", "3", "3"])
     assert p.to_dict() == {"genus": 1, "target_genus": 0, "degree": 3, "profiles": [[3], [3], [3]]}
+
+
+def test_a_negative_euler_characteristic_is_refused():
+    # four sheets over P^1 with no branching: 2g - 2 = 4(-2), g = -3
+    with pytest.raises(ProblemError) as err:
+        HurwitzProblem.build(4, 0)
+    assert str(err.value) == "Riemann-Hurwitz gives negative genus -3"
+
+
+def test_a_problem_checks_itself_when_built_directly():
+    simple = HurwitzProblem.build(2, 1, genus=2).profiles  # (2), (2)
+    cases = [
+        ((1, -1, 2, ()), ProblemError, "target genus -1 is negative; allowed: 0, 1, 2, ..."),
+        ((0, 1, 2, simple), ProblemError, "genus 0 does not satisfy Riemann-Hurwitz"),
+        ((0, 0, 2, HurwitzProblem.build(3, 0, genus=0).profiles), ProfileError,
+         "profile 2,1 sums to 3, not to the degree 2"),
+        # an elliptic target with no marked point is not stable: 2h - 2 + b = 0
+        ((1, 1, 2, ()), ProblemError,
+         "the target of genus 1 with 0 marked point(s) is not stable (need 2h - 2 + b > 0); "
+         "mark an unramified point with profile 1^2 to count unramified covers"),
+    ]
+    for args, error, message in cases:
+        with pytest.raises(error) as err:
+            HurwitzProblem(*args)
+        assert str(err.value) == message
+    # an elliptic curve with one marked point is stable
+    assert HurwitzProblem(1, 1, 2, (Partition([1, 1]),)).points == 1
+
+
+def test_profiles_given_as_sequences():
+    p = HurwitzProblem.build(3, 0, profiles=[(3,), [2, 1], (1, 2)])
+    assert p.profiles == ((3,), (2, 1), (2, 1)) and p.genus == 0
