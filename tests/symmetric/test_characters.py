@@ -130,3 +130,14 @@ def test_characters_by_frobenius_formula(d):
             expected = frobenius_character(tuple(lam), tuple(mu))
             assert table[i][j] == character(lam, mu) == expected
             assert central_character(lam, mu) * dimension(lam) == class_size(mu) * expected
+
+
+def test_zero_parts_are_dropped_and_negative_parts_refused():
+    assert character((2, 1, 0), (0, 3)) == character((2, 1), (3,)) == -1
+    assert dimension((0, 3, 0, 1)) == 3
+    with pytest.raises(ProfileError) as err:
+        character((3, -1, 1), (3,))
+    assert str(err.value) == "partition (3, 1, -1) has a negative part"
+    with pytest.raises(ProfileError) as err:
+        character((2, 1), (2, 2))
+    assert str(err.value) == "lambda (2, 1) and mu (2, 2) are partitions of different integers"
