@@ -5,7 +5,8 @@ from __future__ import annotations
 
 import pytest
 
-from covertree.errors import ProblemError, ProfileError
+from covertree.errors import ProblemError, ProfileError, TooLargeError
+from covertree.hurwitz.marks import MarkError
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.symmetric.partitions import Partition
 
@@ -66,3 +67,46 @@ def test_a_problem_checks_itself_when_built_directly():
 def test_profiles_given_as_sequences():
     p = HurwitzProblem.build(3, 0, profiles=[(3,), [2, 1], (1, 2)])
     assert p.profiles == ((3,), (2, 1), (2, 1)) and p.genus == 0
+
+
+@pytest.mark.parametrize("kwargs, error, message", [
+    (dict(degree=3, target_genus=0, genus=0, profiles=["2,2"]), ProfileError,
+     "profile 2,2 sums to 4, not to the degree 3"),
+    (dict(degree=3, target_genus=0, genus=-1), ProblemError, "genus -1 is negative; allowed: 0, 1, 2, ..."),
+    (dict(degree=1, target_genus=0, genus=1), ProblemError, "genus 1 needs branching, impossible in degree 1"),
+    # degree 2 over P^1: genus g needs 2g + 2 simple points
+    (dict(degree=2, target_genus=0, genus=50_000), TooLargeError,
+     "genus 50000 needs 100002 simple branch points at degree 2; at most 100000 allowed"),
+])
+def test_build_refusals(kwargs, error, message):
+    with pytest.raises(error) as err:
+        HurwitzProblem.build(**kwargs)
+    assert str(err.value) == message
+
+
+def test_build_fills_in_exactly_what_riemann_hurwitz_asks():
+    # the profiles alone reach the genus: 2 = 0 + 2 over an elliptic curve
+    p = HurwitzProblem.build(4, 1, genus=2, profiles=["2,2"])
+    assert p.profiles == ((2, 2),)
+    # 2(49999) - 2 = 2(-2) + 100000: the largest number of points allowed
+    assert HurwitzProblem.build(2, 0, genus=49_999).points == 100_000
+
+
+def test_marks_of_a_problem_built_directly():
+    profiles = HurwitzProblem.build(5, 0, profiles=["3,2", "5", "4,1"]).profiles  # genus 1
+    # legs in leg order (decreasing index at one branch point), given as lists
+    p = HurwitzProblem(1, 0, 5, profiles, [[1, 3], [1, 2], [3, 1]])
+    assert p.marks == ((1, 3), (1, 2), (3, 1))
+    cases = [
+        (((1, 2), (1, 3)), "marks must be in leg order: by branch point, then by decreasing index"),
+        (((2, 5), (1, 3)), "marks must be in leg order: by branch point, then by decreasing index"),
+        (((3, 4), (3, 4)), "2 legs of index 4 over branch point 3; its profile 4,1 has fewer such points"),
+        (((2, 3),), "mark (2, 3) names no point: need a branch point 1 .. 3 and an index in its profile"),
+        (((4, 1),), "mark (4, 1) names no point: need a branch point 1 .. 3 and an index in its profile"),
+    ]
+    for marks, message in cases:
+        with pytest.raises(MarkError) as err:
+            HurwitzProblem(1, 0, 5, profiles, marks)
+        assert str(err.value) == message
+    # one leg over each point of a profile with one such point
+    assert HurwitzProblem(1, 0, 5, profiles, ((2, 5), (3, 4))).n_marks == 2
