@@ -3,16 +3,28 @@
 The number of simple points is checked against Riemann-Hurwitz worked by hand
 and against the problems covertree builds; each refusal's claims are checked by
 asking the guard again: the largest feasible degree (or genus) it names passes,
-the next one is refused.
+the next one is refused.  The table engine's estimate is checked against its
+model (module docstring) with the sub-problems counted by brute force; which
+estimate applies is checked against the engine that would run.  The fitted
+constants of the other two estimates are not pinned (they are measurements,
+``benchmarks/bench_limits.py``).
 """
 
 from __future__ import annotations
+
+import math
+from collections import Counter
+from itertools import combinations_with_replacement, product
 
 import pytest
 
 from covertree.errors import TooLargeError
 from covertree.hurwitz.cost import MAX_POINTS, check_count, count_work, simple_points_needed
+from covertree.hurwitz.numbers import SPARSE_DEGREE
 from covertree.hurwitz.problem import HurwitzProblem
+from covertree.hurwitz.sparse import is_sparse
+from covertree.limits import HUGE
+from tests.independent import partition_count
 
 LIMIT = 10**8
 
@@ -92,3 +104,74 @@ def test_the_genus_hint_follows_the_engine_of_an_elliptic_target():
     check_count(40, 1, largest, [], LIMIT)
     with pytest.raises(TooLargeError):
         check_count(40, 1, largest + 1, [], LIMIT)
+
+
+def _sub_multisets(mu: tuple[int, ...], m: int) -> list[tuple[int, ...]]:
+    """The distinct sub-multisets of size ``m`` of the profile ``mu``: every
+    choice of how many of each part to keep (brute force)."""
+    counts = sorted(Counter(mu).items())
+    out = []
+    for taken in product(*(range(c + 1) for _, c in counts)):
+        if sum(t * part for t, (part, _) in zip(taken, counts)) == m:
+            out.append(tuple(part for t, (part, _) in zip(taken, counts) for _ in range(t)))
+    return out
+
+
+def _table_model(degree: int, profiles: list[tuple[int, ...]]) -> float:
+    # the model of the module docstring, counted afresh: at every sub-degree m,
+    # p(m) central characters of about m / 2 steps, per sub-problem (one
+    # sub-multiset of size m per branch point, up to equal profiles) and point
+    total = 0.0
+    for m in range(1, degree + 1):
+        subproblems = 1
+        for mu, count in Counter(tuple(sorted(mu)) for mu in profiles).items():
+            subproblems *= len(list(combinations_with_replacement(_sub_multisets(mu, m), count)))
+        total += partition_count(m) * subproblems * len(profiles) * m / 2
+    return max(total, float(degree))
+
+
+@pytest.mark.parametrize("degree, target, profiles", [
+    (4, 0, [(2, 1, 1)] * 3),
+    (6, 1, [(3, 1, 1, 1), (2, 2, 1, 1), (2, 2, 1, 1), (1,) * 6]),
+    (5, 2, [(5,)]),
+    (7, 0, [(3, 2, 2), (4, 3), (2, 1, 1, 1, 1, 1), (2, 1, 1, 1, 1, 1)]),
+])
+def test_the_table_estimate_follows_its_model(degree, target, profiles):
+    assert math.isclose(count_work(degree, target, profiles), _table_model(degree, profiles), rel_tol=1e-9)
+    # the same simple points given as profiles or added by number
+    simple = [p for p in profiles if sorted(p) == [1] * (degree - 2) + [2]]
+    rest = [p for p in profiles if p not in simple]
+    assert math.isclose(count_work(degree, target, rest, len(simple)), count_work(degree, target, profiles),
+                        rel_tol=1e-12)
+
+
+@pytest.mark.parametrize("degree, profiles", [
+    (30, [(2,) + (1,) * 28] * 3),                    # degree 30: the table engine
+    (31, [(2,) + (1,) * 29] * 3),                    # above: the sparse engine
+    (31, [(3, 3) + (1,) * 25] * 3),                  # three special points, parts 6: sparse
+    (31, [(3, 3) + (1,) * 25] * 4),                  # four special points: the table
+    (31, [(4, 3) + (1,) * 24]),                      # parts 7: the table
+    (31, [(2,) + (1,) * 29, (1,) * 31]),             # an elliptic target: content moments
+])
+def test_the_estimate_follows_the_engine_that_would_run(degree, profiles):
+    # the engine of covertree.hurwitz.numbers._counts: the table at degree 30
+    # or below or for profiles that are not sparse
+    table = degree <= SPARSE_DEGREE or not is_sparse(profiles)
+    for target in (0, 1, 2):
+        assert math.isclose(count_work(degree, target, profiles), _table_model(degree, profiles),
+                            rel_tol=1e-9) == table
+
+
+def test_the_elliptic_estimate_counts_simple_points_alone():
+    # content moments: simple points given as profiles or by number, and
+    # unramified points, weigh the same
+    simple = (2,) + (1,) * 38
+    assert count_work(40, 1, [simple] * 3) == count_work(40, 1, [], 3) == count_work(40, 1, [simple, (1,) * 40], 2)
+    assert count_work(40, 1, [], 3) > count_work(40, 1, [], 2) > count_work(39, 1, [], 2)
+    # a ramified special point leaves the moments: more work than simple points
+    assert count_work(40, 1, [(3,) + (1,) * 37], 2) > count_work(40, 1, [], 3)
+
+
+def test_beyond_the_largest_integer_handled_the_work_is_infinite():
+    assert count_work(HUGE + 1, 1, [], 2) == math.inf == count_work(40, 1, [], HUGE + 1)
+    assert count_work(HUGE, 1, [], 2) < math.inf
