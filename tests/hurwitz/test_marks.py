@@ -107,9 +107,16 @@ def test_legs_over_a_branch_point_with_their_labels():
 def test_a_point_named_then_marked_in_full_counts_both():
     # 1:2 asks for one point of index 2, then 1 for both: three of the two
     with pytest.raises(MarkError) as info:
-        legs_from_specs([(2, 2, 1)], ["1:2", "1"])
+        legs_from_specs([(2, 2, 1), (3, 1, 1)], ["1:2", "1"])
     assert str(info.value) == ("marks ask for 3 points of index 2 over branch point 1; "
                                "its profile 2,2,1 has 2")
+
+
+@pytest.mark.parametrize("spec", [12, None, "1:2:3", "1^2"])
+def test_a_mark_that_is_not_text_of_the_form_j_e_c(spec):
+    with pytest.raises(MarkError) as info:
+        parse_mark(spec)
+    assert str(info.value) == f"mark {spec!r} is not J, J:e or J:e^c (J a branch point, e an index, c a count)"
 
 
 def test_an_unramified_point_cannot_be_marked_in_full():
