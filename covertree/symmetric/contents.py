@@ -113,11 +113,8 @@ def iter_partitions(n: int) -> Iterator[tuple[int, ...]]:
         if not parts:
             return
         last = parts.pop() - 1
-        rest = ones + 1
-        parts.append(last)
-        while rest > last:
-            parts.append(last)
-            rest -= last
+        copies, rest = divmod(ones + 1, last)
+        parts += [last] * (copies + 1)
         if rest:
             parts.append(rest)
 

@@ -124,7 +124,13 @@ def test_parse_bounds_the_numbers():
             Partition.parse(text)
         assert str(err.value) == (f"profile {text!r} is larger than the largest degree covertree handles "
                                   f"({MAX_DEGREE}; far smaller ones are refused as infeasible)")
-    # a long text is shown by a window of 40 characters and its length
+    # a text of 40 characters is shown whole, a longer one by a window of 40
+    # characters and its length
+    text = "1," * 19 + "y,"
+    assert len(text) == 40
+    with pytest.raises(ProfileError) as err:
+        Partition.parse(text)
+    assert str(err.value).startswith(f"profile {text!r}: 'y' is not a part")
     text = "1," * 30 + "x"
     with pytest.raises(ProfileError) as err:
         Partition.parse(text)
