@@ -175,3 +175,12 @@ def test_the_elliptic_estimate_counts_simple_points_alone():
 def test_beyond_the_largest_integer_handled_the_work_is_infinite():
     assert count_work(HUGE + 1, 1, [], 2) == math.inf == count_work(40, 1, [], HUGE + 1)
     assert count_work(HUGE, 1, [], 2) < math.inf
+
+
+def test_more_points_or_sheets_are_more_work():
+    # every engine: one more simple point, or one more sheet, costs more
+    special = [(3,) + (1,) * 37] * 2
+    for target, profiles in ((1, []), (0, special), (2, special)):
+        works = [count_work(40, target, profiles, s) for s in range(4)]
+        assert works == sorted(works) and len(set(works)) == 4, (target, works)
+        assert count_work(41, target, [p + (1,) for p in profiles], 2) > works[2]
