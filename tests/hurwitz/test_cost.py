@@ -145,18 +145,20 @@ def test_the_table_estimate_follows_its_model(degree, target, profiles):
                         rel_tol=1e-12)
 
 
-@pytest.mark.parametrize("degree, profiles", [
-    (30, [(2,) + (1,) * 28] * 3),                    # degree 30: the table engine
-    (31, [(2,) + (1,) * 29] * 3),                    # above: the sparse engine
-    (31, [(3, 3) + (1,) * 25] * 3),                  # three special points, parts 6: sparse
-    (31, [(3, 3) + (1,) * 25] * 4),                  # four special points: the table
-    (31, [(4, 3) + (1,) * 24]),                      # parts 7: the table
-    (31, [(2,) + (1,) * 29, (1,) * 31]),             # an elliptic target: content moments
+@pytest.mark.parametrize("degree, profiles, sparse", [
+    (30, [(2,) + (1,) * 28] * 3, True),              # degree 30: the table engine
+    (31, [(2,) + (1,) * 29] * 3, True),              # above: the sparse engine
+    (31, [(3, 3) + (1,) * 25] * 3, True),            # three special points, parts 6: sparse
+    (31, [(3, 3) + (1,) * 25] * 4, False),           # four special points: the table
+    (31, [(4, 3) + (1,) * 24], False),               # parts 7: the table
+    (31, [(2,) + (1,) * 29, (1,) * 31], True),       # simple and unramified points
 ])
-def test_the_estimate_follows_the_engine_that_would_run(degree, profiles):
+def test_the_estimate_follows_the_engine_that_would_run(degree, profiles, sparse):
     # the engine of covertree.hurwitz.numbers._counts: the table at degree 30
-    # or below or for profiles that are not sparse
-    table = degree <= SPARSE_DEGREE or not is_sparse(profiles)
+    # or below or for profiles that are not sparse (at most three points other
+    # than simple or unramified, parts >= 2 of each summing to at most 6)
+    assert is_sparse(profiles) == sparse
+    table = degree <= SPARSE_DEGREE or not sparse
     for target in (0, 1, 2):
         assert math.isclose(count_work(degree, target, profiles), _table_model(degree, profiles),
                             rel_tol=1e-9) == table

@@ -110,3 +110,26 @@ def test_marks_of_a_problem_built_directly():
         assert str(err.value) == message
     # one leg over each point of a profile with one such point
     assert HurwitzProblem(1, 0, 5, profiles, ((2, 5), (3, 4))).n_marks == 2
+
+
+def test_degree_bounds_in_one_line():
+    from covertree.hurwitz.numbers import connected_hurwitz
+    from covertree.limits import MAX_DEGREE
+    for degree, error, message in [
+        (0, ProblemError, "degree 0 is not allowed; the degree must be a positive integer"),
+        (MAX_DEGREE + 1, TooLargeError, f"degree {MAX_DEGREE + 1} is larger than the largest degree covertree "
+                                        f"handles ({MAX_DEGREE}; far smaller ones are refused as infeasible)"),
+    ]:
+        with pytest.raises(error) as err:
+            HurwitzProblem.build(degree, 1, genus=1)
+        assert str(err.value) == message
+    # the largest degree itself is a problem (unramified covers of an elliptic curve)
+    assert HurwitzProblem(1, 1, MAX_DEGREE, (Partition.parse(f"1^{MAX_DEGREE}"),)).degree == MAX_DEGREE
+    for args, error, message in [
+        ((2, -1, [(2,)]), ProblemError, "target genus -1 is not allowed; allowed: 0, 1, 2, ..."),
+        ((2, True, [(2,)]), ProblemError, "target genus True is not allowed; allowed: 0, 1, 2, ..."),
+        ((3, 0, [(2, 1), (2,)]), ProfileError, "profile 2 sums to 2, not to the degree 3"),
+    ]:
+        with pytest.raises(error) as err:
+            connected_hurwitz(*args)
+        assert str(err.value) == message
