@@ -103,8 +103,7 @@ def _sub_multisets(nu: tuple[int, ...], ones: int, m: int) -> int:
         for s, ways in enumerate(sizes):
             if ways:
                 for take in range(mult + 1):
-                    if s + take * part < len(new):
-                        new[s + take * part] += ways
+                    new[s + take * part] += ways  # at most sum(nu): in range
         sizes = new
     return sum(ways for s, ways in enumerate(sizes) if s <= m and m - s <= ones)
 

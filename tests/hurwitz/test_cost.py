@@ -135,6 +135,8 @@ def _table_model(degree: int, profiles: list[tuple[int, ...]]) -> float:
     (6, 1, [(3, 1, 1, 1), (2, 2, 1, 1), (2, 2, 1, 1), (1,) * 6]),
     (5, 2, [(5,)]),
     (7, 0, [(3, 2, 2), (4, 3), (2, 1, 1, 1, 1, 1), (2, 1, 1, 1, 1, 1)]),
+    # 4 = 2 + 2: two sub-multisets of 4, 2, 2 of the same size
+    (9, 1, [(4, 2, 2, 1), (4, 2, 2, 1), (2,) + (1,) * 7]),
 ])
 def test_the_table_estimate_follows_its_model(degree, target, profiles):
     assert math.isclose(count_work(degree, target, profiles), _table_model(degree, profiles), rel_tol=1e-9)
