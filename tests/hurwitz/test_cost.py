@@ -61,6 +61,7 @@ def test_the_estimate_is_the_limit_of_what_passes():
     assert simple_points_needed(3, 1, 2, [(3,)]) == 0
     line = _refusal(3, 1, 2, [(3,)], 1)
     assert line.startswith("degree 3 with 1 branch point would take ") and "beyond the work limit 1 " in line
+    assert line.endswith("; no degree is feasible with 1 branch point")
     check_count(3, 1, 2, [(3,)], None)
 
 
@@ -82,16 +83,30 @@ def test_too_many_points_refused_naming_the_largest_feasible_genus():
     assert _refusal(6, 0, 50_000, [], LIMIT) == line
 
 
-def test_a_refused_degree_names_the_largest_feasible_one():
-    # one profile 3,1^(d-3): the named degree passes with the same profile, the next not
+@pytest.mark.parametrize("nu", [(3,), (2, 2)])
+def test_a_refused_degree_names_the_largest_feasible_one(nu):
+    # one profile nu,1^(d-|nu|): the named degree passes with the same profile, the next not
     d = 100_000
-    line = _refusal(d, 1, None, [(3,) + (1,) * (d - 3)], LIMIT)
+    line = _refusal(d, 1, None, [nu + (1,) * (d - sum(nu))], LIMIT)
     assert "the largest feasible degree with 1 branch point is " in line
     largest = int(line.rsplit(" ", 1)[1])
-    assert 3 <= largest < d
-    check_count(largest, 1, None, [(3,) + (1,) * (largest - 3)], LIMIT)
+    assert sum(nu) <= largest < d
+    check_count(largest, 1, None, [nu + (1,) * (largest - sum(nu))], LIMIT)
     with pytest.raises(TooLargeError):
-        check_count(largest + 1, 1, None, [(3,) + (1,) * (largest - 2)], LIMIT)
+        check_count(largest + 1, 1, None, [nu + (1,) * (largest + 1 - sum(nu))], LIMIT)
+
+
+def test_a_refused_genus_names_the_largest_feasible_degree_and_genus():
+    # degree 40 over an elliptic curve with 2g - 2 simple points
+    line = _refusal(40, 1, 39, [], LIMIT)
+    assert line.startswith("degree 40 with 76 branch points would take about ")
+    head, genus = line.rsplit("; the largest feasible genus at degree 40 is ", 1)
+    largest = int(head.rsplit(" ", 1)[1])
+    assert head.endswith(f"the largest feasible degree with 76 branch points is {largest}")
+    check_count(largest, 1, None, [(2,) + (1,) * (largest - 2)] * 76, LIMIT)
+    check_count(40, 1, int(genus), [], LIMIT)
+    with pytest.raises(TooLargeError):
+        check_count(40, 1, int(genus) + 1, [], LIMIT)
 
 
 def test_the_genus_hint_follows_the_engine_of_an_elliptic_target():
