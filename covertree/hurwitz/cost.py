@@ -152,7 +152,8 @@ def _genus_hint(degree: int, target_genus: int, genus: int | None, profiles, lim
             return math.inf
         return count_work(degree, target_genus, profiles, max(simple, 0))
 
+    # genus itself was refused, so the search (up to genus) ends below it
     largest = largest_feasible(cost, max(low, 0), max(genus, 0), limit)
-    if largest is None or largest >= genus or largest <= low:
+    if largest is None or largest <= low:
         return ""
     return f"; the largest feasible genus at degree {degree} is {largest}"

@@ -20,6 +20,10 @@ from covertree.symmetric.partitions import Partition
     (dict(degree=2, target_genus=1, genus=0),
      "genus 0 is too small for degree 2, target genus 1 and profiles (none): their total "
      "ramification 0 exceeds the -2 that Riemann-Hurwitz allows"),
+    # four 3-cycles over P^1 give genus 2: 2(1) - 2 + 6 = 6 < 8
+    (dict(degree=3, target_genus=0, genus=1, profiles=["3", "3", "3", "3"]),
+     "genus 1 is too small for degree 3, target genus 0 and profiles (3) (3) (3) (3): their total "
+     "ramification 8 exceeds the 6 that Riemann-Hurwitz allows"),
     # three 3-cycles over P^1 give genus 1, not 0
     (dict(degree=3, target_genus=0, genus=0, profiles=["3", "3", "3"]),
      "genus 0 is too small for degree 3, target genus 0 and profiles (3) (3) (3): their total "
