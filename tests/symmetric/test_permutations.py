@@ -1,7 +1,7 @@
 """Permutations on tuples (covertree.symmetric.permutations) against the
 definitions, checked over all of ``S_3`` and ``S_4``.
 
-Each helper is compared with its definition written out here: the product of
+Each function is compared with its definition written out here: the product of
 maps "first p, then q", the inverse as the map undoing ``p``, cycles by
 following images, orbits as the closure of a point under the generators.
 """
