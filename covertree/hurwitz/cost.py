@@ -103,8 +103,7 @@ def _sub_multisets(nu: tuple[int, ...], ones: int, m: int) -> int:
         for s, ways in enumerate(sizes):
             if ways:
                 for take in range(mult + 1):
-                    if s + take * part < len(new):
-                        new[s + take * part] += ways
+                    new[s + take * part] += ways  # at most sum(nu): in range
         sizes = new
     return sum(ways for s, ways in enumerate(sizes) if s <= m and m - s <= ones)
 
@@ -153,7 +152,8 @@ def _genus_hint(degree: int, target_genus: int, genus: int | None, profiles, lim
             return math.inf
         return count_work(degree, target_genus, profiles, max(simple, 0))
 
+    # genus itself was refused, so the search (up to genus) ends below it
     largest = largest_feasible(cost, max(low, 0), max(genus, 0), limit)
-    if largest is None or largest >= genus or largest <= low:
+    if largest is None or largest <= low:
         return ""
     return f"; the largest feasible genus at degree {degree} is {largest}"

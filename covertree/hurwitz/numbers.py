@@ -191,9 +191,15 @@ def tuple_counts(
     return _counts(degree, target_genus, key)
 
 
+def _sparse_applies(degree: int, key: Profiles) -> bool:
+    """Whether the sparse engine counts this problem (both engines give the
+    same numbers; the sparse one keeps the memory polynomial at high degree)."""
+    return degree > SPARSE_DEGREE and is_sparse(key)
+
+
 def _counts(degree: int, target_genus: int, key: Profiles) -> tuple[int, int]:
     # (T, N) by the sparse engine at high degree when it applies, else by the table
-    if degree > SPARSE_DEGREE and is_sparse(key):
+    if _sparse_applies(degree, key):
         return sparse_tuple_counts(degree, target_genus, key)
     groups = sorted(Counter(key).items())
     for m in range(1, degree):  # bottom up: the memoised recursion stays one level deep
@@ -218,7 +224,7 @@ def disconnected_hurwitz(
     Fraction(2, 1)
     """
     key = _normalise(degree, target_genus, profiles)
-    if degree > SPARSE_DEGREE and is_sparse(key):
+    if _sparse_applies(degree, key):
         return Fraction(sparse_tuple_counts(degree, target_genus, key)[1], factorial(degree))
     return Fraction(_tuples(target_genus, degree, key), factorial(degree))
 

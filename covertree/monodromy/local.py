@@ -89,9 +89,11 @@ def local_covers(degree: int, genus: int, profiles: Sequence[Sequence[int] | Non
     allowed = [None if p is None else dict(Counter(p)) for p in profiles]
     pieces = [pc for k in range(1, degree + 1) for pc in _pieces(k, genus, _allowance_key(k, allowed))
               if max_genus is None or pc.genus <= max_genus]
+    if not pieces:
+        return []
     need = [None if p is None else Counter(p) for p in profiles]
     out: list[LocalCover] = []
-    bound = degree * max((pc.genus for pc in pieces), default=0) if max_genus is None else max_genus
+    bound = degree * max(pc.genus for pc in pieces) if max_genus is None else max_genus
     _multisets(pieces, 0, (degree, bound), need, [], out)
     return out
 

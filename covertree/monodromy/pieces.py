@@ -49,7 +49,7 @@ from collections.abc import Sequence
 from dataclasses import dataclass, field
 from functools import cached_property
 
-from covertree.symmetric.permutations import Perm, cycle_type
+from covertree.symmetric.permutations import Perm, cycle_type, inverse
 
 #: Allowed cycle lengths at a special point: length -> maximal number of cycles,
 #: or ``None`` when the type is free (a half-edge).
@@ -224,24 +224,16 @@ def _solve(before: list[Perm], after: list[Perm], handles: int, k: int) -> Perm:
     word: list[Perm] = []
     for i in range(handles):
         a, b = before[2 * i], before[2 * i + 1]
-        word += [a, b, _inverse(a), _inverse(b)]
+        word += [a, b, inverse(a), inverse(b)]
     word += before[2 * handles:]
-    s = [0] * k
+    # s is the inverse of "the specials after, then the word before"
+    rest = []
     for y in range(k):
         x = y
-        for perm in after:
+        for perm in after + word:
             x = perm[x]
-        for perm in word:
-            x = perm[x]
-        s[x] = y
-    return tuple(s)
-
-
-def _inverse(perm: Perm) -> list[int]:
-    inv = [0] * len(perm)
-    for i, j in enumerate(perm):
-        inv[j] = i
-    return inv
+        rest.append(x)
+    return inverse(tuple(rest))
 
 
 class _Table:
@@ -385,9 +377,9 @@ class _Table:
             return True
         if top == m:
             return False
-        fwd, back, g, sign = word[m]
-        if back[y] >= 0:
-            return False
+        # one letter missing: its forward image at x and (the backward scan
+        # stopped there) its backward image at y are both undefined
+        g, sign = word[m][2:]
         if sign < 0:
             x, y = y, x
         return self.define(g, x, y)

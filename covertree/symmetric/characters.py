@@ -70,10 +70,10 @@ __all__ = [
 
 def _normal(parts: Iterable[int]) -> tuple[int, ...]:
     """Non-increasing tuple of the positive parts (zeros dropped)."""
-    t = tuple(sorted((p for p in parts if p), reverse=True))
-    if any(p < 0 for p in t):
+    t = tuple(sorted(parts, reverse=True))
+    if t and t[-1] < 0:
         raise ProfileError(f"partition {t} has a negative part")
-    return t
+    return tuple(p for p in t if p)
 
 
 def _pair(lam: Iterable[int], mu: Iterable[int]) -> tuple[tuple[int, ...], tuple[int, ...]]:

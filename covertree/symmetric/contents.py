@@ -113,11 +113,8 @@ def iter_partitions(n: int) -> Iterator[tuple[int, ...]]:
         if not parts:
             return
         last = parts.pop() - 1
-        rest = ones + 1
-        parts.append(last)
-        while rest > last:
-            parts.append(last)
-            rest -= last
+        copies, rest = divmod(ones + 1, last)
+        parts += [last] * (copies + 1)
         if rest:
             parts.append(rest)
 
@@ -188,7 +185,9 @@ def _strips(mask: int, nu: tuple[int, ...]) -> Iterator[tuple[int, int]]:
 def strip_character(lam: Sequence[int], nu: Sequence[int]) -> int:
     """``chi_lambda(nu + 1^r)`` with ``r = |lambda| - |nu|`` (parts of ``nu`` at
     least 2, ``|nu| <= |lambda|``): Murnaghan-Nakayama on the parts of ``nu``,
-    then the hook length formula, with no table and no memo.
+    then the hook length formula, with no table and no memo.  The rule holds
+    for the strips removed in any order; ``nu`` non-increasing (as
+    :func:`~covertree.hurwitz.sparse.sparse_part` gives it) branches least.
 
     >>> strip_character((2, 1), (3,)), strip_character((3, 1, 1), (2,))
     (-1, 0)
@@ -196,7 +195,7 @@ def strip_character(lam: Sequence[int], nu: Sequence[int]) -> int:
     9
     """
     total = 0
-    for sign, left in _strips(_mask(lam), tuple(sorted(nu, reverse=True))):
+    for sign, left in _strips(_mask(lam), tuple(nu)):
         size, hooks = _hooks_of_mask(left)
         total += sign * (factorial(size) // hooks)
     return total

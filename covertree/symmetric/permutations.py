@@ -55,10 +55,8 @@ def inverse(p: Perm) -> Perm:
     >>> inverse((2, 0, 1))
     (1, 2, 0)
     """
-    inv = [0] * len(p)
-    for i, j in enumerate(p):
-        inv[j] = i
-    return tuple(inv)
+    # sheet i sits at place p[i]: the sheets listed by their images are p^-1
+    return tuple(sorted(range(len(p)), key=p.__getitem__))
 
 
 def commutator(a: Perm, b: Perm) -> Perm:

@@ -193,3 +193,24 @@ def test_index_three_subgroups(g):
     if g == 2:
         assert expected == 220
         assert connected_hurwitz(2, 2, [(1, 1)]) == Fraction(15, 2)
+
+
+# --- disconnected numbers above the table engine's degrees -------------------
+
+
+def _content_sum(lam):
+    # sum of j - i over the cells (i, j) of the diagram, cell by cell
+    return sum(j - i for i, part in enumerate(lam) for j in range(part))
+
+
+@pytest.mark.parametrize("d", [31, 36])
+def test_disconnected_numbers_of_an_elliptic_curve_at_high_degree(d):
+    # Frobenius' formula over an elliptic curve (G. Frobenius 1896; S. K. Lando
+    # and A. K. Zvonkin, Graphs on Surfaces and Their Applications, 2004,
+    # appendix A): H* = sum over lambda |- d of prod_j f_lambda(mu_j), with
+    # f_lambda(1^d) = 1 and f_lambda(2, 1^(d-2)) = the content sum of lambda
+    # (I. G. Macdonald, Symmetric Functions and Hall Polynomials, 1995, I.7
+    # Example 7).  Unramified: p(d) covers; two simple points: sum of c^2.
+    assert disconnected_hurwitz(d, 1, [(1,) * d]) == partition_count(d)
+    expected = sum(_content_sum(lam) ** 2 for lam in partitions(d))
+    assert disconnected_hurwitz(d, 1, [(2,) + (1,) * (d - 2)] * 2) == expected

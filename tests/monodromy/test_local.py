@@ -112,3 +112,10 @@ def test_local_covers_by_hand():
     # s = 1; three connected pieces ((a, b) generating S_2) and two sheets.
     covers = local_covers(2, 1, [None])
     assert sorted(tuple(p.degree for p in c.pieces) for c in covers) == [(1, 1), (2,), (2,), (2,)]
+
+
+def test_a_profile_that_no_sheet_can_carry_gives_no_local_cover():
+    # a 3-cycle needs three sheets: over a degree-2 vertex there is no piece
+    # at all, hence no local cover (with or without a genus bound)
+    assert local_covers(2, 0, [(3,)]) == []
+    assert local_covers(2, 1, [(3,), None], max_genus=5) == []

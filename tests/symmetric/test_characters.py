@@ -109,3 +109,35 @@ def test_table_order_matches_partitions_of():
     parts, table = character_table(7)
     assert list(parts) == list(partitions_of(7))
     assert len(table) == len(parts) == 15
+
+
+def test_deep_diagram_dimension_is_exact():
+    # beyond the branching-rule depth the dimension is a large exact integer
+    # (hook length formula written out in tests/independent.py)
+    from tests.independent import hook_dimension
+    lam = (300, 5, 4, 3, 2, 1)
+    value = dimension(lam)
+    assert type(value) is int
+    assert value == hook_dimension(lam) > 2**80
+
+
+@pytest.mark.parametrize("d", range(1, 7))
+def test_characters_by_frobenius_formula(d):
+    from tests.symmetric.frobenius_formula import frobenius_character
+    parts, table = character_table(d)
+    for i, lam in enumerate(parts):
+        for j, mu in enumerate(parts):
+            expected = frobenius_character(tuple(lam), tuple(mu))
+            assert table[i][j] == character(lam, mu) == expected
+            assert central_character(lam, mu) * dimension(lam) == class_size(mu) * expected
+
+
+def test_zero_parts_are_dropped_and_negative_parts_refused():
+    assert character((2, 1, 0), (0, 3)) == character((2, 1), (3,)) == -1
+    assert dimension((0, 3, 0, 1)) == 3
+    with pytest.raises(ProfileError) as err:
+        character((3, -1, 1), (3,))
+    assert str(err.value) == "partition (3, 1, -1) has a negative part"
+    with pytest.raises(ProfileError) as err:
+        character((2, 1), (2, 2))
+    assert str(err.value) == "lambda (2, 1) and mu (2, 2) are partitions of different integers"
