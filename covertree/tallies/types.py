@@ -120,7 +120,7 @@ from math import factorial, lcm, perm, prod
 from covertree.catalogue.catalogue import problem_hurwitz, select_strata, weight_by_graph
 from covertree.catalogue.covers import legs_per_vertex, make_graph
 from covertree.errors import GraphError, IdentityError, ProblemError
-from covertree.graphs.canonical import _certify
+from covertree.graphs.canonical import certify
 from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.monodromy.local import special_points
@@ -546,7 +546,7 @@ def _type_code(classes: Sequence[int], edges: Sequence[tuple[int, int, int, int]
         x = len(legs)
         legs.append((offset + colours.index((k, l, m)),))
         graph_edges += [(x, i), (x, j), (x, j)]
-    key, _, aut_v = _certify((0,) * len(legs), tuple(graph_edges), tuple(legs))
+    key, _, aut_v = certify((0,) * len(legs), tuple(graph_edges), tuple(legs))
     return key, aut_v, prod(factorial(m) for m in counts.values())
 
 
