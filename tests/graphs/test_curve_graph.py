@@ -82,3 +82,24 @@ def test_order_and_hash_distinguish_leg_labels():
     strata = stable_graphs(0, 5, max_codim=1)
     assert len({g.key for g in strata}) == len(strata) == 11
     assert sorted(reversed(strata)) == strata
+
+
+def test_stable_parse_refuses_an_unstable_graph_naming_its_vertex():
+    # g0{1} ends one edge and carries one leg: valence 2, unstable in genus 0; g1 is stable
+    with pytest.raises(GraphError) as info:
+        StableCurveGraph.parse("g1, g0{1} | 0-1")
+    assert "(genus 0, valence 2) is unstable" in str(info.value)
+    assert CurveGraph.parse("g1, g0{1} | 0-1").n_legs == 1
+
+
+def test_from_dict_legs_are_optional_and_errors_name_the_problem():
+    assert StableCurveGraph.from_dict({"vertices": [{"genus": 1}, {"genus": 1}], "edges": [[0, 1]]}) == \
+        StableCurveGraph([1, 1], nodes=[(0, 1)])
+    with pytest.raises(GraphError, match="not a graph description: missing or malformed 'vertices'"):
+        CurveGraph.from_dict({"edges": []})
+
+
+def test_order_is_strict():
+    strata = stable_graphs(1, 2)
+    assert not any(g < g for g in strata)
+    assert sum(1 for g in strata for h in strata if g < h) == len(strata) * (len(strata) - 1) // 2

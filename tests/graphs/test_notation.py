@@ -82,3 +82,33 @@ def test_errors_name_the_column(text, column, fragment):
 def test_invalid_graphs_raise_notation_errors(text, fragment):
     with pytest.raises(NotationError, match=fragment):
         parse_graph(text)
+
+
+@pytest.mark.parametrize(
+    "text, message",
+    [
+        # columns counted by hand, 0-based
+        ("g0, g0 | 0 1", "column 11: expected '-' between the two ends of an edge, found '1'"),
+        ("g0, g0 | 0-1^", "column 13: expected an edge multiplicity after '^', found the end"),
+        ("g0, g0 | 0-", "column 11: expected a vertex index, found the end"),
+        ("g0{1} | 0-1", "column 10: vertex index 1 out of range (the graph has 1 vertex)"),
+        ("g0, g0 | 0-2", "column 11: vertex index 2 out of range (the graph has 2 vertices)"),
+        ("g0{1", "column 4: expected ',' or '}' in the list of legs, found the end"),
+    ],
+)
+def test_error_messages_in_full(text, message):
+    with pytest.raises(NotationError) as info:
+        parse_graph(text)
+    assert str(info.value) == message
+
+
+def test_multiplicity_one_is_a_single_edge():
+    assert parse_graph("g0, g0 | 0-1^1") == parse_graph("g0, g0 | 0-1")
+
+
+def test_multiplicity_cap_counts_vertices_edges_and_legs():
+    # two vertices and 598 parallel edges make exactly MAX_GRAPH_ITEMS = 600 items: accepted
+    assert parse_graph("g0, g0 | 0-1^598").n_nodes == 598
+    with pytest.raises(NotationError) as info:
+        parse_graph("g0, g0 | 0-1^599")
+    assert str(info.value) == "column 13: edge multiplicity 599 makes the graph larger than 600 vertices, edges and legs"
