@@ -103,3 +103,26 @@ def test_order_is_strict():
     strata = stable_graphs(1, 2)
     assert not any(g < g for g in strata)
     assert sum(1 for g in strata for h in strata if g < h) == len(strata) * (len(strata) - 1) // 2
+
+
+@pytest.mark.parametrize(
+    "args, message",
+    [
+        (([], []), "a graph needs at least one vertex"),
+        (([(True, [])], []), "vertex 0 has genus True; genera are integers >= 0"),
+        (([0, (1.5, [])], [(0, 1)]), "vertex 1 has genus 1.5; genera are integers >= 0"),
+        (([(0, [True])], []), "leg label True at vertex 0 is not a positive integer"),
+        (([(0, ["1"])], []), "leg label '1' at vertex 0 is not a positive integer"),
+        (([0, 0, 0], [(0, 1)]), "the graph is disconnected (2 components)"),
+    ],
+)
+def test_invalid_graph_messages_in_full(args, message):
+    with pytest.raises(GraphError) as info:
+        CurveGraph(*args)
+    assert str(info.value) == message
+
+
+def test_parts_without_legs():
+    # the internal constructor with no legs: every vertex without legs
+    g = CurveGraph._from_parts([1, 0], [(1, 0), (1, 1)])
+    assert g == CurveGraph([1, 0], nodes=[(0, 1), (1, 1)]) and g.n_legs == 0 and g.genus == 2

@@ -104,3 +104,25 @@ def test_results_are_fresh_lists():
     first = stable_graphs(0, 4)
     first.clear()
     assert len(stable_graphs(0, 4)) == 4
+
+
+def test_layer_guard_stops_between_codimensions_and_names_a_feasible_one():
+    # Mbar_{1,3} under 10^4 steps: the estimate before the start lets it through, the exact
+    # count of the candidates of a later codimension stops it; what the refusal says is checked
+    # against the unlimited listing: the strata found so far, and the named codimension lists.
+    import re
+
+    from covertree.errors import TooLargeError
+
+    reached = []
+    with pytest.raises(TooLargeError) as info:
+        stable_graphs(1, 3, max_work=10**4, on_layer=lambda k, found: reached.append((k, found)))
+    line = str(info.value)
+    match = re.fullmatch(r"the strata of Mbar_\{1,3\} up to codim 3 \(up to codim (\d), after (\d+) strata\) would "
+                         r"take (\d+) steps, beyond the work limit 10\^4 \(--max-work\); the largest feasible codim "
+                         r"is (\d)", line)
+    assert match, line
+    k, found, steps, feasible = map(int, match.groups())
+    assert found == len(stable_graphs(1, 3, max_codim=k - 1)) and feasible == k - 1 and steps > 10**4
+    assert reached == [(j, len(stable_graphs(1, 3, max_codim=j - 1)) if j else 0) for j in range(k + 1)]
+    assert len(stable_graphs(1, 3, max_codim=feasible, max_work=10**4)) == found

@@ -8,7 +8,7 @@ from itertools import permutations, product
 
 import pytest
 
-from covertree.errors import GraphError, IdentityError
+from covertree.errors import GraphError, IdentityError, ProblemError
 from covertree.graphs.notation import parse_graph
 from covertree.hurwitz.numbers import connected_hurwitz
 from covertree.hurwitz.problem import HurwitzProblem
@@ -257,3 +257,10 @@ def test_local_multisets_with_loops_match_brute_force(d, h, legs, n_halves, g, l
     multisets = local_multisets(d, h, legs, n_halves, g, loops)
     assert multisets and multisets == sorted(set(multisets))
     assert set(multisets) == _brute_multisets(shapes, d, legs, g, loops)
+
+
+def test_types_are_not_listed_for_marked_problems():
+    problem = HurwitzProblem.build(2, 0, genus=2, marks=["1"])
+    base = BaseStratum(parse_graph("g0{1,2,3,4,5,6}"), 1)
+    with pytest.raises(ProblemError, match="^types are listed for unmarked problems only; the tallies take the marks$"):
+        list(iter_types(problem, base))
