@@ -4,7 +4,9 @@ against the list engine, which lists every marked cover."""
 import pytest
 
 from covertree.catalogue.catalogue import build_catalogue
+from covertree.catalogue.pullback import build_pullback
 from covertree.hurwitz.problem import HurwitzProblem
+from covertree.tallies.pullback import pullback_from_types
 from covertree.tallies.types import tally_catalogue
 
 # (degree, target genus, source genus, profiles, marks): "J:e^c" marks c points of index e over
@@ -30,3 +32,25 @@ def test_marked_tallies_agree_with_the_listed_covers(spec):
     for s, t in zip(listed.strata, tallied.strata, strict=True):
         assert t.total_weight == s.total_weight and t.by_source() == s.by_source(), s.base.graph.notation
     assert not tallied.failures
+
+
+@pytest.mark.parametrize("spec, labeled", [
+    ((2, 0, 2, (), ["1"]), False),
+    ((2, 0, 2, (), ["1", "4"]), True),
+    ((2, 1, 2, (), ["1"]), False),
+    ((2, 0, 2, (), []), True),
+    ((3, 0, 2, ("2,1",) * 8, ["1:1"]), False),
+])
+def test_pullbacks_from_types_agree_with_the_listed_covers(spec, labeled):
+    # the divisors of Mbar_{G,n} with the marks, the rows per base stratum (per orbit of like
+    # branch points unless labeled): the list engine's, coefficient by coefficient
+    d, h, g, profiles, marks = spec
+    problem = HurwitzProblem.build(d, h, genus=g, profiles=profiles, marks=marks)
+    listed, typed = build_pullback(problem, labeled=labeled), pullback_from_types(problem, labeled=labeled)
+    assert typed.problem == listed.problem and typed.hurwitz_number == listed.hurwitz_number
+    assert typed.divisors == listed.divisors and len(typed.rows) == len(listed.rows) > 0
+    for a, b in zip(listed.rows, typed.rows):
+        assert a.base == b.base and a.coefficients == b.coefficients, a.base.graph.notation
+        assert a.branch_total == b.branch_total == b.hurwitz_number == a.hurwitz_number
+        assert b.n_covers == 0 < a.n_covers  # the type engine lists no covers
+    assert not typed.failures
