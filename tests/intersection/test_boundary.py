@@ -134,3 +134,12 @@ def test_pullback_of_a_separating_divisor_along_another():
     assert pullback_terms(0, 5, (0, (1, 2)), ("delta", (0, (1, 2)))) == (
         (-1, 0, ("psi", 3)), (-1, 1, ("psi", 4)))
     assert pullback_terms(0, 5, (0, (1, 2)), ("delta", (0, (1, 3)))) == ()
+
+
+def test_pullback_along_the_irreducible_divisor_with_both_half_edges_on_one_side():
+    # Mbar_{3,3} along delta_0 (vertex space Mbar_{2,5}, half-edges 4 and 5): the divisor
+    # delta_1_{1,2,3} (a genus-1 side with the legs, a genus-2 side without) pulls back to the
+    # separating divisors of Mbar_{2,5} with both half-edges on one side: on a genus-0 side with
+    # the legs (glued, the genus-1 side) or on a genus-1 side without them (glued, the genus-2 side)
+    assert pullback_terms(3, 3, IRR, ("delta", (1, (1, 2, 3)))) == (
+        (1, 0, ("delta", (0, (1, 2, 3, 4, 5)))), (1, 0, ("delta", (1, (4, 5)))))
