@@ -207,7 +207,8 @@ def _splits(genera: tuple, edges: tuple, legs: tuple, v: int):
     for mask in range(0, 1 << items, 2):  # item 0 stays at v
         s2 = mask.bit_count()
         s1 = items - s2
-        g_range = [g1 for g1 in range(g + 1) if 2 * g1 + s1 >= 2 and 2 * (g - g1) + s2 >= 2]
+        # each side is stable with the new half-edge: positive genus or two more items
+        g_range = [g1 for g1 in range(g + 1) if (g1 > 0 or s1 >= 2) and (g1 < g or s2 >= 2)]
         if not g_range:
             continue
         legs1 = tuple(j for i, j in enumerate(legs[v]) if not mask >> i & 1)

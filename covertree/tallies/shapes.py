@@ -137,8 +137,6 @@ def _shapes_with_legs(k: int, h: int, legs: tuple[Profile, ...], n_halves: int,
     out = []
     for genus in range(max_genus + 1):
         total = base - 2 * genus
-        if n_halves == 0 and total != 0:
-            continue
         out.extend(Shape(k, legs, halves, genus, h) for halves in _half_profiles(k, n_halves, total))
     return out
 

@@ -338,13 +338,6 @@ def _vertex_data(base: StableCurveGraph, degree: int, genus: int, profiles: Sequ
     return out
 
 
-def _union_profiles(shapes: Sequence[Shape], multiset: Sequence[int], n_halves: int) -> tuple[Profile, ...]:
-    return tuple(
-        tuple(sorted((x for i in multiset for x in shapes[i].halves[p]), reverse=True))
-        for p in range(n_halves)
-    )
-
-
 def _multiset_options(vd: _Vertex) -> list[tuple[tuple[int, ...], tuple[Profile, ...], int]]:
     """``(multiset, profiles at the half points, genus)`` for every local
     multiset of a vertex.  The multisets come sorted, so consecutive ones

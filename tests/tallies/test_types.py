@@ -264,3 +264,10 @@ def test_types_are_not_listed_for_marked_problems():
     base = BaseStratum(parse_graph("g0{1,2,3,4,5,6}"), 1)
     with pytest.raises(ProblemError, match="^types are listed for unmarked problems only; the tallies take the marks$"):
         list(iter_types(problem, base))
+
+
+def test_pullback_orders_need_a_codimension_one_base():
+    problem = HurwitzProblem.build(2, 0, genus=2)
+    smooth = tally_stratum(problem, BaseStratum(parse_graph("g0{1,2,3,4,5,6}"), 1))
+    with pytest.raises(IdentityError, match="^orders along a branch need a codimension-one base stratum$"):
+        smooth.pullback_orders()
