@@ -126,3 +126,40 @@ def test_layer_guard_stops_between_codimensions_and_names_a_feasible_one():
     assert found == len(stable_graphs(1, 3, max_codim=k - 1)) and feasible == k - 1 and steps > 10**4
     assert reached == [(j, len(stable_graphs(1, 3, max_codim=j - 1)) if j else 0) for j in range(k + 1)]
     assert len(stable_graphs(1, 3, max_codim=feasible, max_work=10**4)) == found
+
+
+@pytest.mark.parametrize("genus, n, codim, limit", [
+    (6, 4, 19, 10**8), (3, 6, 15, 10**6), (1, 9, 9, 10**5), (0, 12, 9, 10**6), (0, 4, 1, 10), (2, 0, 3, 10),
+])
+def test_refusal_names_values_that_are_feasible(genus, n, codim, limit):
+    # every value the refusal names fits the limit and the next one does not, by the same
+    # estimate (covertree.limits.strata_work) the refusal itself is decided by
+    import re
+
+    from covertree.errors import TooLargeError
+    from covertree.graphs.enumerate import check_strata
+    from covertree.limits import strata_work
+
+    assert strata_work(genus, n, codim) > limit
+    with pytest.raises(TooLargeError) as info:
+        check_strata(genus, n, codim, limit)
+    line = str(info.value)
+    assert line.startswith(f"the strata of Mbar_{{{genus},{n}}} up to codim {codim} would take ")
+    tail = line.split("(--max-work); ", 1)[1]
+    parts = tail.removesuffix(" at that codim").split(", ")
+    assert tail.endswith(" at that codim") == (len(parts) > 1)
+    if parts[0] == "no codimension is feasible":
+        assert strata_work(genus, n, 0) > limit
+    else:
+        k = int(re.fullmatch(r"the largest feasible codim is (\d+)", parts[0]).group(1))
+        assert strata_work(genus, n, k) <= limit < strata_work(genus, n, k + 1)
+    for part in parts[1:]:
+        if match := re.fullmatch(rf"genus (\d+) with {n} points", part):
+            g = int(match.group(1))
+            assert strata_work(g, n, codim) <= limit < strata_work(g + 1, n, codim)
+        else:
+            m = int(re.fullmatch(rf"(\d+) points? at genus {genus}", part).group(1))
+            assert part.endswith("points at genus " + str(genus)) == (m != 1)
+            assert strata_work(genus, m, codim) <= limit < strata_work(genus, m + 1, codim)
+    check_strata(genus, n, codim, strata_work(genus, n, codim))  # at the estimate itself: allowed
+    check_strata(genus, n, codim, None)
