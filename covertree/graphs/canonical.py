@@ -157,7 +157,7 @@ def edge_symmetry_factor(edges: Sequence[tuple[int, int]]) -> int:
     """
     counts: dict[tuple[int, int], int] = {}
     for a, b in edges:
-        pair = (a, b) if a <= b else (b, a)
+        pair = (min(a, b), max(a, b))
         counts[pair] = counts.get(pair, 0) + 1
     out = 1
     for (a, b), m in counts.items():

@@ -126,3 +126,10 @@ def test_parts_without_legs():
     # the internal constructor with no legs: every vertex without legs
     g = CurveGraph._from_parts([1, 0], [(1, 0), (1, 1)])
     assert g == CurveGraph([1, 0], nodes=[(0, 1), (1, 1)]) and g.n_legs == 0 and g.genus == 2
+
+
+def test_a_smooth_curve_of_genus_one_without_legs_is_unstable():
+    # 2g - 2 + n = 0 for (g, n) = (1, 0): Mbar_{1,0} does not exist (common knowledge)
+    assert not CurveGraph([1]).is_stable() and CurveGraph([1], nodes=[(0, 0)]).is_stable()
+    with pytest.raises(GraphError, match=r"vertex 0 \(genus 1, valence 0\) is unstable"):
+        StableCurveGraph([1])

@@ -163,3 +163,10 @@ def test_refusal_names_values_that_are_feasible(genus, n, codim, limit):
             assert strata_work(genus, m, codim) <= limit < strata_work(genus, m + 1, codim)
     check_strata(genus, n, codim, strata_work(genus, n, codim))  # at the estimate itself: allowed
     check_strata(genus, n, codim, None)
+
+
+@pytest.mark.parametrize("codim", [True, -1, 1.0])
+def test_codimension_must_be_an_integer(codim):
+    with pytest.raises(GraphError) as info:
+        stable_graphs(0, 4, max_codim=codim)
+    assert str(info.value) == f"the codimension must be an integer >= 0, got {codim!r}"
