@@ -54,3 +54,10 @@ def test_pullbacks_from_types_agree_with_the_listed_covers(spec, labeled):
         assert a.branch_total == b.branch_total == b.hurwitz_number == a.hurwitz_number
         assert b.n_covers == 0 < a.n_covers  # the type engine lists no covers
     assert not typed.failures
+
+
+def test_default_is_codimension_one_as_in_the_catalogue():
+    problem = HurwitzProblem.build(2, 0, genus=2)
+    tallied = tally_catalogue(problem)
+    assert tallied.codim == 1 and {t.base.codim for t in tallied.strata} == {0, 1}
+    assert [t.base for t in tallied.strata] == [s.base for s in build_catalogue(problem, max_codim=1).strata]
