@@ -66,7 +66,8 @@ def test_names_by_hand():
 @pytest.mark.parametrize(
     "g, n, name, message",
     [
-        (2, 0, "delta_2", r"'delta_2': on Mbar_2 delta_i needs 1 <= i <= 1"),
+        (2, 0, "delta_2", r"^'delta_2': on Mbar_2 delta_i needs 1 <= i <= 1$"),
+        (5, 0, "delta_3", r"^'delta_3': on Mbar_5 delta_i needs 1 <= i <= 2$"),
         (2, 0, "delta_1_{1}", r"unknown factor 'delta_1_\{1\}' on Mbar_\{2,0\}: expected delta_0, delta_i \(1 <= i <= g/2\)"),
         (0, 4, "delta_0", r"'delta_0': Mbar_\{0,4\} has no irreducible boundary divisor"),
         (2, 1, "delta_1", r"unknown factor 'delta_1' on Mbar_\{2,1\}: expected delta_0, delta_i_\{a,b,...\} \(genus-i side"),
