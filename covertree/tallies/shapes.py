@@ -104,7 +104,7 @@ def _half_profiles(k: int, n: int, total: int) -> list[tuple[Profile, ...]]:
     out = []
     for first_len in range(max(1, total - (n - 1) * k), min(k, total - (n - 1)) + 1):
         for rest in _half_profiles(k, n - 1, total - first_len):
-            out.extend((p,) + rest for p in by_len.get(first_len, ()))
+            out.extend((p,) + rest for p in by_len[first_len])  # every length 1..k occurs
     return out
 
 

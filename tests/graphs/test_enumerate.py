@@ -130,6 +130,7 @@ def test_layer_guard_stops_between_codimensions_and_names_a_feasible_one():
 
 @pytest.mark.parametrize("genus, n, codim, limit", [
     (6, 4, 19, 10**8), (3, 6, 15, 10**6), (1, 9, 9, 10**5), (0, 12, 9, 10**6), (0, 4, 1, 10), (2, 0, 3, 10),
+    (0, 4, 1, 100), (1, 5, 5, 10**4), (2, 2, 5, 3000), (1, 2, 2, 150), (3, 2, 7, 10**4),
 ])
 def test_refusal_names_values_that_are_feasible(genus, n, codim, limit):
     # every value the refusal names fits the limit and the next one does not, by the same
@@ -153,14 +154,23 @@ def test_refusal_names_values_that_are_feasible(genus, n, codim, limit):
     else:
         k = int(re.fullmatch(r"the largest feasible codim is (\d+)", parts[0]).group(1))
         assert strata_work(genus, n, k) <= limit < strata_work(genus, n, k + 1)
+    named = {"genus": None, "points": None}
     for part in parts[1:]:
         if match := re.fullmatch(rf"genus (\d+) with {n} points", part):
-            g = int(match.group(1))
-            assert strata_work(g, n, codim) <= limit < strata_work(g + 1, n, codim)
+            g = named["genus"] = int(match.group(1))
+            assert strata_work(g, n, codim) <= limit < strata_work(g + 1, n, codim) and 2 * g - 2 + n > 0
         else:
-            m = int(re.fullmatch(rf"(\d+) points? at genus {genus}", part).group(1))
+            m = named["points"] = int(re.fullmatch(rf"(\d+) points? at genus {genus}", part).group(1))
             assert part.endswith("points at genus " + str(genus)) == (m != 1)
             assert strata_work(genus, m, codim) <= limit < strata_work(genus, m + 1, codim)
+            assert 2 * genus - 2 + m > 0
+    # a value left unnamed has no feasible choice, or only an unstable one
+    if named["genus"] is None:
+        fits = [g for g in range(genus + 1) if strata_work(g, n, codim) <= limit]
+        assert not fits or 2 * max(fits) - 2 + n <= 0
+    if named["points"] is None:
+        fits = [m for m in range(n + 1) if strata_work(genus, m, codim) <= limit]
+        assert not fits or 2 * genus - 2 + max(fits) <= 0
     check_strata(genus, n, codim, strata_work(genus, n, codim))  # at the estimate itself: allowed
     check_strata(genus, n, codim, None)
 
@@ -170,3 +180,26 @@ def test_codimension_must_be_an_integer(codim):
     with pytest.raises(GraphError) as info:
         stable_graphs(0, 4, max_codim=codim)
     assert str(info.value) == f"the codimension must be an integer >= 0, got {codim!r}"
+
+
+def test_a_listing_beyond_the_limit_is_refused_before_it_starts():
+    def started(k, found):
+        raise AssertionError(f"codimension {k} was listed")
+
+    from covertree.errors import TooLargeError
+
+    with pytest.raises(TooLargeError, match=r"^the strata of Mbar_\{6,4\} up to codim 19 would take"):
+        stable_graphs(6, 4, max_work=10**8, on_layer=started)
+
+
+@pytest.mark.parametrize("genus, n, message", [
+    (-1, 3, "the genus must be an integer >= 0, got -1"),
+    (True, 3, "the genus must be an integer >= 0, got True"),
+    (0, -2, "the number of legs must be an integer >= 0, got -2"),
+    (0, 4.0, "the number of legs must be an integer >= 0, got 4.0"),
+    (1, 0, "there are no stable curves of type (g, n) = (1, 0): need 2g - 2 + n > 0"),
+])
+def test_type_errors_in_full(genus, n, message):
+    with pytest.raises(GraphError) as info:
+        stable_graphs(genus, n)
+    assert str(info.value) == message

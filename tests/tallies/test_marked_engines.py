@@ -20,6 +20,8 @@ MARKED = [
     (3, 0, 0, ("3",), ["1", "2:1"]),
     (2, 0, 1, ("2", "2", "2", "2", "1,1"), ["5:1^2", "1"]),
     (3, 0, 1, ("2,1",) * 4 + ("1,1,1",), ["5:1", "3:2"]),
+    # two kinds of marked points, 3 labellings of the first in a piece of degree 3 and 1 of the second
+    (3, 0, 0, ("1,1,1", "2,1", "2,1", "2,1", "2,1"), ["1:1", "2:2"]),
 ]
 
 
@@ -61,3 +63,18 @@ def test_default_is_codimension_one_as_in_the_catalogue():
     tallied = tally_catalogue(problem)
     assert tallied.codim == 1 and {t.base.codim for t in tallied.strata} == {0, 1}
     assert [t.base for t in tallied.strata] == [s.base for s in build_catalogue(problem, max_codim=1).strata]
+
+
+def test_strata_selection_as_in_the_catalogue():
+    # one given stratum, labelled strata and the work limit are passed on as the catalogue passes them
+    from covertree.errors import TooLargeError
+    from covertree.graphs.notation import parse_graph
+
+    problem = HurwitzProblem.build(2, 0, genus=2)
+    stratum = parse_graph("g0{1,2}, g0{3,4,5,6} | 0-1")
+    for kwargs in ({"stratum": stratum}, {"labeled": True}, {"stratum": stratum, "labeled": True}):
+        tallied, listed = tally_catalogue(problem, 1, **kwargs), build_catalogue(problem, max_codim=1, **kwargs)
+        assert [t.base for t in tallied.strata] == [s.base for s in listed.strata], kwargs
+        assert [t.total_weight for t in tallied.strata] == [s.total_weight for s in listed.strata], kwargs
+    with pytest.raises(TooLargeError):
+        tally_catalogue(problem, 3, max_work=10)

@@ -271,3 +271,16 @@ def test_pullback_orders_need_a_codimension_one_base():
     smooth = tally_stratum(problem, BaseStratum(parse_graph("g0{1,2,3,4,5,6}"), 1))
     with pytest.raises(IdentityError, match="^orders along a branch need a codimension-one base stratum$"):
         smooth.pullback_orders()
+
+
+def test_listed_types_carry_their_pieces_and_point_pairs():
+    # over g0{1,2} | 0-0 every piece sits at the one vertex, and each type pairs the points over
+    # the two ends of the node one by one: as many pairs as points over one end
+    problem = HurwitzProblem.build(3, 1, genus=2)
+    base = BaseStratum(parse_graph("g0{1,2} | 0-0"), 1)
+    types = list(iter_types(problem, base))
+    assert types
+    for t in types:
+        assert t.vertex == (0,) * len(t.shapes)
+        assert len(t.edges) == sum(len(p) for p in t.edge_profiles)
+        assert {i for i, _, _, _ in t.edges} | {j for _, j, _, _ in t.edges} <= set(range(len(t.shapes)))
