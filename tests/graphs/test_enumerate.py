@@ -130,7 +130,8 @@ def test_layer_guard_stops_between_codimensions_and_names_a_feasible_one():
 
 @pytest.mark.parametrize("genus, n, codim, limit", [
     (6, 4, 19, 10**8), (3, 6, 15, 10**6), (1, 9, 9, 10**5), (0, 12, 9, 10**6), (0, 4, 1, 10), (2, 0, 3, 10),
-    (0, 4, 1, 100), (1, 5, 5, 10**4), (2, 2, 5, 3000), (1, 2, 2, 150), (3, 2, 7, 10**4),
+    (0, 4, 1, 100), (1, 5, 5, 10**4), (2, 2, 5, 3000), (1, 2, 2, 150), (3, 2, 7, 10**4), (1, 3, 3, 1000),
+    (2, 0, 3, 100),
 ])
 def test_refusal_names_values_that_are_feasible(genus, n, codim, limit):
     # every value the refusal names fits the limit and the next one does not, by the same
