@@ -55,7 +55,7 @@ LAYERS: dict[str, tuple[list[str], list[str]]] = {
          "tests/catalogue/test_hand_examples.py"],
     ),
     "tallies": (["covertree/tallies/*"], ["tests/tallies"]),
-    "intersection": (["covertree/intersection/*"], ["tests/locus", "tests/intersection"]),
+    "intersection": (["covertree/intersection/*"], ["tests/intersection", "tests/locus/test_published_marks.py"]),
 }
 
 

@@ -28,7 +28,7 @@ from fractions import Fraction
 
 from covertree.errors import IdentityError
 from covertree.gluing.covers import GluedCover, glued_covers
-from covertree.graphs.canonical import _certify
+from covertree.graphs.canonical import certify
 from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph, _relabelled, _unstable_vertex, _validated
 from covertree.hurwitz.problem import source_genus
 from covertree.stabilisation.stabilise import Stabilised, stabilise
@@ -135,7 +135,7 @@ def certified_graph(genera: Sequence[int], edges: Sequence[tuple[int, int]],
     :func:`covertree.graphs.canonical.canonical_form`), from one canonical
     form."""
     genera, edges, legs = _validated(genera, edges, legs)
-    key, order, aut_v = _certify(genera, edges, legs)
+    key, order, aut_v = certify(genera, edges, legs)
     kind = StableCurveGraph if _unstable_vertex(genera, edges, legs) is None else CurveGraph
     return kind._from_canonical(*_relabelled(genera, edges, legs, order), key, aut_v), tuple(order)
 

@@ -56,7 +56,14 @@ from math import factorial
 from covertree.errors import GraphError
 from covertree.unionfind import DisjointSets
 
-__all__ = ["canonical_form", "count_automorphisms", "vertex_automorphism_count"]
+__all__ = [
+    "canonical_form",
+    "certify",
+    "check_shape",
+    "count_automorphisms",
+    "edge_symmetry_factor",
+    "vertex_automorphism_count",
+]
 
 
 def canonical_form(
@@ -91,8 +98,8 @@ def canonical_form(
     >>> canonical_form([0, 0, 0], [(2, 0), (0, 1)], [[3], [1], [2]])[1]
     [1, 2, 0]
     """
-    _check_shape(genera, edges, legs)
-    key, order, _ = _certify(tuple(genera), tuple(map(tuple, edges)), tuple(map(tuple, legs)))
+    check_shape(genera, edges, legs)
+    key, order, _ = certify(tuple(genera), tuple(map(tuple, edges)), tuple(map(tuple, legs)))
     return key, order, canonical_edge_order(order, edges)
 
 
@@ -123,9 +130,9 @@ def count_automorphisms(
     >>> count_automorphisms([1, 1], [(0, 1)], [[1], []])
     1
     """
-    _check_shape(genera, edges, legs)
+    check_shape(genera, edges, legs)
     edges = tuple(map(tuple, edges))
-    aut_v = _certify(tuple(genera), edges, tuple(map(tuple, legs)))[2]
+    aut_v = certify(tuple(genera), edges, tuple(map(tuple, legs)))[2]
     return aut_v * edge_symmetry_factor(edges)
 
 
@@ -141,8 +148,8 @@ def vertex_automorphism_count(
     >>> vertex_automorphism_count([0, 0], [(0, 1)] * 3, [[], []])
     2
     """
-    _check_shape(genera, edges, legs)
-    return _certify(tuple(genera), tuple(map(tuple, edges)), tuple(map(tuple, legs)))[2]
+    check_shape(genera, edges, legs)
+    return certify(tuple(genera), tuple(map(tuple, edges)), tuple(map(tuple, legs)))[2]
 
 
 def edge_symmetry_factor(edges: Sequence[tuple[int, int]]) -> int:
@@ -155,7 +162,7 @@ def edge_symmetry_factor(edges: Sequence[tuple[int, int]]) -> int:
     """
     counts: dict[tuple[int, int], int] = {}
     for a, b in edges:
-        pair = (a, b) if a <= b else (b, a)
+        pair = (min(a, b), max(a, b))
         counts[pair] = counts.get(pair, 0) + 1
     out = 1
     for (a, b), m in counts.items():
@@ -163,7 +170,27 @@ def edge_symmetry_factor(edges: Sequence[tuple[int, int]]) -> int:
     return out
 
 
-def _check_shape(genera, edges, legs) -> None:
+def check_shape(genera: Sequence[int], edges: Sequence[Sequence[int]], legs: Sequence[Sequence[int]]) -> None:
+    """Check that ``genera``, ``edges`` and ``legs`` describe a graph on the
+    vertices ``0..V-1`` (``V = len(genera)``), as :func:`canonical_form` and
+    :func:`certify` expect them.
+
+    Genera and leg labels are not checked here (callers have their own rules).
+
+    Raises
+    ------
+    GraphError
+        If ``legs`` does not have one entry per vertex, or an edge is not a
+        pair of vertex indices.
+
+    Examples
+    --------
+    >>> check_shape([0, 1], [(0, 1)], [[1], []])
+    >>> check_shape([0, 1], [(0, 2)], [[1], []])
+    Traceback (most recent call last):
+    ...
+    covertree.errors.GraphError: edge (0, 2) does not join two of the vertices 0..1
+    """
     n = len(genera)
     if len(legs) != n:
         raise GraphError(f"legs must have one entry per vertex ({n}), got {len(legs)}")
@@ -181,11 +208,43 @@ def _edge_code(a: int, b: int, n: int) -> int:
 # ---------------------------------------------------------------------------
 
 
-def _certify(genera: tuple, edges: tuple, legs: tuple) -> tuple[tuple, list[int], int]:
-    """``(key, vertex_order, |Aut_V|)`` for a graph on plain tuples.
+def certify(genera: tuple, edges: tuple, legs: tuple) -> tuple[tuple, list[int], int]:
+    """Canonical key, canonical vertex order and vertex automorphism count of
+    a graph on plain tuples, its shape unchecked.
 
-    Legs may repeat (a multiset of colours per vertex): then ``|Aut_V|`` counts
-    vertex permutations preserving the colours.
+    The fast entry point for code that builds its graphs itself (the
+    constructors of :class:`~covertree.graphs.curve_graph.CurveGraph`, the
+    enumeration of strata, the types of the tallies): the input is taken as
+    it is, so it must already pass :func:`check_shape`.  Unlike in
+    :func:`canonical_form`, the legs may repeat: they are then a multiset of
+    colours per vertex, and an isomorphism keeps the colours.
+
+    Parameters
+    ----------
+    genera : tuple of int
+        Genus (or any integer colour) of each vertex.
+    edges : tuple of (int, int)
+        Edges as pairs of vertex indices; ``(i, i)`` is a loop.
+    legs : tuple of tuples of int
+        Leg labels (or colours, repeats allowed) at each vertex.
+
+    Returns
+    -------
+    key : tuple of int
+        The certificate of :func:`canonical_form` (legs sorted per vertex):
+        equal for two inputs if and only if they are isomorphic.
+    vertex_order : list of int
+        ``vertex_order[i]`` is the input vertex at canonical position ``i``.
+    aut_v : int
+        Order of the group of vertex permutations preserving genera, legs
+        (colours) and edge multiplicities, as :func:`vertex_automorphism_count`.
+
+    Examples
+    --------
+    >>> certify((0, 0), ((0, 1),), ((1,), (2,)))[1:]
+    ([0, 1], 1)
+    >>> certify((0, 0, 0), ((0, 1), (0, 2)), ((), (5,), (5,)))[2]  # two leaves of one colour
+    2
     """
     n = len(genera)
     nbrs, loops, valence = _adjacency(n, edges)

@@ -37,7 +37,7 @@ from collections.abc import Mapping, Sequence
 from typing import NamedTuple
 
 from covertree.errors import GraphError
-from covertree.graphs.canonical import _certify, _check_shape, edge_symmetry_factor
+from covertree.graphs.canonical import certify, check_shape, edge_symmetry_factor
 from covertree.unionfind import DisjointSets
 
 __all__ = ["CurveGraph", "StableCurveGraph", "Vertex"]
@@ -125,7 +125,7 @@ class CurveGraph:
     def _build(self, genera, edges, legs) -> None:
         genera, edges, legs = _validated(genera, edges, legs)
         self._check_extra(genera, edges, legs)
-        key, order, aut_v = _certify(genera, edges, legs)
+        key, order, aut_v = certify(genera, edges, legs)
         self._set(*_relabelled(genera, edges, legs, order), key, aut_v)
 
     def _check_extra(self, genera: tuple, edges: tuple, legs: tuple) -> None:
@@ -360,7 +360,7 @@ def _validated(genera, edges, legs) -> tuple[tuple, tuple, tuple]:
             raise GraphError(f"vertex {v} has genus {g!r}; genera are integers >= 0")
     legs = tuple(tuple(x) for x in legs) if legs is not None else ((),) * len(genera)
     edges = tuple(tuple(e) for e in edges)
-    _check_shape(genera, edges, legs)
+    check_shape(genera, edges, legs)
     _check_legs(legs)
     _check_connected(len(genera), edges)
     return genera, edges, legs

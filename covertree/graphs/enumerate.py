@@ -30,7 +30,7 @@ from __future__ import annotations
 from functools import lru_cache
 
 from covertree.errors import GraphError
-from covertree.graphs.canonical import _certify
+from covertree.graphs.canonical import certify
 from covertree.graphs.curve_graph import StableCurveGraph, _relabelled
 from covertree.limits import STEPS_PER_STRATUM_VERTEX, check_work, largest_feasible, strata_work
 
@@ -174,14 +174,14 @@ def _layer(genus: int, n: int, k: int) -> tuple[_Raw, ...]:
     found: dict[tuple, _Raw] = {}
     for _, genera, edges, legs, _ in _layer(genus, n, k - 1):
         for child in _children(genera, edges, legs):
-            key, order, aut_v = _certify(*child)
+            key, order, aut_v = certify(*child)
             if key not in found:
                 found[key] = (key, *_relabelled(*child, order), aut_v)
     return tuple(found[key] for key in sorted(found))
 
 
 def _canonical(genera: tuple, edges: tuple, legs: tuple) -> _Raw:
-    key, order, aut_v = _certify(genera, edges, legs)
+    key, order, aut_v = certify(genera, edges, legs)
     return (key, *_relabelled(genera, edges, legs, order), aut_v)
 
 
@@ -207,7 +207,8 @@ def _splits(genera: tuple, edges: tuple, legs: tuple, v: int):
     for mask in range(0, 1 << items, 2):  # item 0 stays at v
         s2 = mask.bit_count()
         s1 = items - s2
-        g_range = [g1 for g1 in range(g + 1) if 2 * g1 + s1 >= 2 and 2 * (g - g1) + s2 >= 2]
+        # each side is stable with the new half-edge: positive genus or two more items
+        g_range = [g1 for g1 in range(g + 1) if (g1 > 0 or s1 >= 2) and (g1 < g or s2 >= 2)]
         if not g_range:
             continue
         legs1 = tuple(j for i, j in enumerate(legs[v]) if not mask >> i & 1)

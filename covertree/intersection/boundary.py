@@ -157,12 +157,12 @@ def parse_divisor(g: int, n: int, name: str) -> Key:
 
 
 def _parse_plain(g: int, n: int, i: int, name: str) -> Key:
+    """``delta_0`` on any ``Mbar_{g,n}``, ``delta_i`` on ``Mbar_g`` (the only
+    names without braces :func:`parse_divisor` passes here)."""
     if i == 0:
         if g == 0:
             raise InputError(f"{name!r}: Mbar_{{0,{n}}} has no irreducible boundary divisor")
         return IRR
-    if n > 0:
-        raise InputError(f"unknown factor {name!r} on Mbar_{{{g},{n}}}: expected delta_0, {_grammar(n)}")
     if not 1 <= i <= g // 2:
         raise InputError(f"{name!r}: on Mbar_{g} delta_i needs 1 <= i <= {g // 2}")
     return (i, ())

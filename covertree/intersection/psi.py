@@ -92,8 +92,8 @@ def psi_integral(g: int, exponents: tuple[int, ...] | list[int]) -> Fraction:
 
 
 def _dfact(n: int) -> int:
-    """Double factorial with ``(-1)!! = 1``."""
-    return prod(range(n, 0, -2)) if n > 0 else 1
+    """Double factorial with ``(-1)!! = 1`` (an empty product for ``n <= 0``)."""
+    return prod(range(n, 0, -2))
 
 
 @lru_cache(maxsize=None)

@@ -35,7 +35,7 @@ from collections.abc import Collection, Sequence
 from dataclasses import dataclass
 
 from covertree.errors import GraphError, ProfileError
-from covertree.graphs.canonical import _certify
+from covertree.graphs.canonical import certify
 from covertree.graphs.curve_graph import StableCurveGraph
 from covertree.graphs.enumerate import stable_graphs
 from covertree.symmetric.partitions import Partition
@@ -162,4 +162,4 @@ def stratum_orbit(graph: StableCurveGraph, profiles: Sequence[Sequence[int]], fi
 def _colour_key(g: StableCurveGraph, classes: list[int]) -> tuple:
     """Canonical key of ``g`` with each leg replaced by its profile class."""
     coloured = tuple(tuple(classes[j - 1] for j in legs) for legs in g.vertex_legs)
-    return _certify(g.vertex_genera, g.nodes, coloured)[0]
+    return certify(g.vertex_genera, g.nodes, coloured)[0]

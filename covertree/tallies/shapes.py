@@ -159,7 +159,7 @@ def _half_profiles(k: int, n: int, total: int) -> list[tuple[Profile, ...]]:
     out = []
     for first_len in range(max(1, total - (n - 1) * k), min(k, total - (n - 1)) + 1):
         for rest in _half_profiles(k, n - 1, total - first_len):
-            out.extend((p,) + rest for p in by_len.get(first_len, ()))
+            out.extend((p,) + rest for p in by_len[first_len])  # every length 1..k occurs
     return out
 
 
@@ -198,8 +198,6 @@ def _shapes_with_legs(k: int, h: int, legs: tuple[Profile, ...], n_halves: int,
     out = []
     for genus in range(max_genus + 1):
         total = base - 2 * genus
-        if n_halves == 0 and total != 0:
-            continue
         out.extend(Shape(k, legs, halves, genus, h) for halves in _half_profiles(k, n_halves, total))
     return out
 

@@ -127,7 +127,7 @@ from math import factorial, lcm, perm, prod
 from covertree.catalogue.catalogue import problem_hurwitz, select_strata, weight_by_graph
 from covertree.catalogue.covers import legs_per_vertex, make_graph
 from covertree.errors import GraphError, IdentityError, ProblemError
-from covertree.graphs.canonical import _certify
+from covertree.graphs.canonical import certify
 from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph
 from covertree.hurwitz.problem import HurwitzProblem
 from covertree.monodromy.local import special_points
@@ -361,13 +361,6 @@ def _vertex_data(base: StableCurveGraph, degree: int, genus: int, profiles: Sequ
     return out
 
 
-def _union_profiles(shapes: Sequence[Shape], multiset: Sequence[int], n_halves: int) -> tuple[Profile, ...]:
-    return tuple(
-        tuple(sorted((x for i in multiset for x in shapes[i].halves[p]), reverse=True))
-        for p in range(n_halves)
-    )
-
-
 def _multiset_options(vd: _Vertex) -> list[tuple[tuple[int, ...], tuple[Profile, ...], int]]:
     """``(multiset, profiles at the half points, genus)`` for every local
     multiset of a vertex.  The multisets come sorted, so consecutive ones
@@ -581,7 +574,7 @@ def _type_code(classes: Sequence[int], edges: Sequence[tuple[int, int, int, int]
         x = len(legs)
         legs.append((offset + colours.index((k, l, m)),))
         graph_edges += [(x, i), (x, j), (x, j)]
-    key, _, aut_v = _certify((0,) * len(legs), tuple(graph_edges), tuple(legs))
+    key, _, aut_v = certify((0,) * len(legs), tuple(graph_edges), tuple(legs))
     return key, aut_v, prod(factorial(m) for m in counts.values())
 
 

@@ -3,10 +3,18 @@
 from itertools import combinations_with_replacement, permutations
 from math import factorial
 
+import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from covertree.graphs.canonical import canonical_form, count_automorphisms
+from covertree.graphs.canonical import (
+    canonical_form,
+    certify,
+    check_shape,
+    count_automorphisms,
+    edge_symmetry_factor,
+    vertex_automorphism_count,
+)
 
 # -- brute force -------------------------------------------------------------
 
@@ -196,3 +204,112 @@ def test_key_of_large_symmetric_graph_is_invariant(data):
     other = scrambled(data.draw, *graph)
     assert canonical_form(*graph)[0] == canonical_form(*other)[0]
     assert count_automorphisms(*other) == factorial(4) * 2**4
+
+
+# -- networkx as an independent oracle, colours, the public entry points ------
+
+
+def to_networkx(genera, edges, legs):
+    import networkx as nx
+
+    g = nx.MultiGraph()
+    for v, (genus, labels) in enumerate(zip(genera, legs)):
+        g.add_node(v, colour=(genus, tuple(sorted(labels))))
+    g.add_edges_from(edges)
+    return g
+
+
+def isomorphic(a, b):
+    import networkx as nx
+
+    return nx.is_isomorphic(to_networkx(*a), to_networkx(*b), node_match=lambda x, y: x["colour"] == y["colour"])
+
+
+@st.composite
+def pairs_of_graphs(draw):
+    """A graph and a scrambled copy of it, the copy changed a little three times in four
+    (an edge end moved, a genus raised or a leg moved): isomorphic or not."""
+    original = draw(graphs(max_vertices=5, max_extra=3, max_legs=2))
+    genera, edges, legs = list(original[0]), list(original[1]), [list(x) for x in original[2]]
+    change = draw(st.sampled_from(["none", "edge", "genus", "leg"]))
+    n = len(genera)
+    if change == "edge" and edges:
+        k = draw(st.integers(0, len(edges) - 1))
+        edges[k] = (edges[k][0], draw(st.integers(0, n - 1)))
+    elif change == "genus":
+        genera[draw(st.integers(0, n - 1))] += 1
+    elif change == "leg" and any(legs):
+        v = next(v for v in range(n) if legs[v])
+        legs[draw(st.integers(0, n - 1))].append(legs[v].pop())
+    return original, scrambled(draw, genera, edges, legs)
+
+
+@settings(max_examples=60, deadline=None)
+@given(pairs_of_graphs())
+def test_keys_agree_with_networkx_isomorphism(pair):
+    a, b = pair
+    assert (canonical_form(*a)[0] == canonical_form(*b)[0]) == isomorphic(a, b)
+
+
+def brute_vertex_automorphisms(genera, edges, legs):
+    """Vertex permutations keeping genera, the multiset of leg colours and the edge multiset."""
+    n = len(genera)
+    target = sorted(tuple(sorted(e)) for e in edges)
+    return sum(
+        1
+        for p in permutations(range(n))
+        if all(genera[p[v]] == genera[v] and sorted(legs[p[v]]) == sorted(legs[v]) for v in range(n))
+        and sorted(tuple(sorted((p[a], p[b]))) for a, b in edges) == target
+    )
+
+
+@st.composite
+def coloured_graphs(draw):
+    """Graphs whose legs are colours that may repeat (at one vertex and across vertices)."""
+    genera, edges, legs = draw(graphs(max_vertices=5, max_extra=3, max_legs=0))
+    legs = [draw(st.lists(st.integers(1, 2), max_size=2)) for _ in genera]
+    return genera, edges, legs
+
+
+@settings(max_examples=60, deadline=None)
+@given(coloured_graphs(), st.data())
+def test_certify_with_repeated_colours(graph, data):
+    genera, edges, legs = graph
+    key, order, aut_v = certify(tuple(genera), tuple(edges), tuple(map(tuple, legs)))
+    assert aut_v == brute_vertex_automorphisms(genera, edges, legs)
+    assert sorted(order) == list(range(len(genera)))
+    other = scrambled(data.draw, genera, edges, legs)
+    assert certify(tuple(other[0]), tuple(other[1]), tuple(map(tuple, other[2])))[0] == key
+    # the certificate lists the genera and then the sorted colours in canonical vertex order
+    n = len(genera)
+    assert key[:2 + n] == (n, len(edges), *[genera[v] for v in order])
+
+
+@settings(max_examples=40, deadline=None)
+@given(graphs(max_vertices=5, max_extra=3))
+def test_vertex_automorphisms_and_edge_symmetry(graph):
+    genera, edges, legs = graph
+    aut_v = vertex_automorphism_count(genera, edges, legs)
+    assert aut_v == brute_vertex_automorphisms(genera, edges, legs)
+    # the half-edge group: the vertex group times the automorphisms fixing every vertex
+    assert count_automorphisms(genera, edges, legs) == aut_v * edge_symmetry_factor(edges)
+    assert edge_symmetry_factor(edges) == count_edge_bijections(edges, lambda e: e) * 2 ** sum(a == b for a, b in edges)
+
+
+@pytest.mark.parametrize(
+    "genera, edges, legs, message",
+    [
+        ([0, 0], [(0, 1)], [[1]], "legs must have one entry per vertex (2), got 1"),
+        ([0, 0], [(0, 2)], [[], []], "edge (0, 2) does not join two of the vertices 0..1"),
+        ([0, 0], [(0, -1)], [[], []], "edge (0, -1) does not join two of the vertices 0..1"),
+        ([0, 0], [(0, 1, 1)], [[], []], "edge (0, 1, 1) does not join two of the vertices 0..1"),
+        ([0, 0], [(0, "1")], [[], []], "edge (0, '1') does not join two of the vertices 0..1"),
+    ],
+)
+def test_shape_errors(genera, edges, legs, message):
+    from covertree.errors import GraphError
+
+    for function in (check_shape, canonical_form, count_automorphisms, vertex_automorphism_count):
+        with pytest.raises(GraphError) as info:
+            function(genera, edges, legs)
+        assert str(info.value) == message

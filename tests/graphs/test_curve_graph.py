@@ -82,3 +82,54 @@ def test_order_and_hash_distinguish_leg_labels():
     strata = stable_graphs(0, 5, max_codim=1)
     assert len({g.key for g in strata}) == len(strata) == 11
     assert sorted(reversed(strata)) == strata
+
+
+def test_stable_parse_refuses_an_unstable_graph_naming_its_vertex():
+    # g0{1} ends one edge and carries one leg: valence 2, unstable in genus 0; g1 is stable
+    with pytest.raises(GraphError) as info:
+        StableCurveGraph.parse("g1, g0{1} | 0-1")
+    assert "(genus 0, valence 2) is unstable" in str(info.value)
+    assert CurveGraph.parse("g1, g0{1} | 0-1").n_legs == 1
+
+
+def test_from_dict_legs_are_optional_and_errors_name_the_problem():
+    assert StableCurveGraph.from_dict({"vertices": [{"genus": 1}, {"genus": 1}], "edges": [[0, 1]]}) == \
+        StableCurveGraph([1, 1], nodes=[(0, 1)])
+    with pytest.raises(GraphError, match="not a graph description: missing or malformed 'vertices'"):
+        CurveGraph.from_dict({"edges": []})
+
+
+def test_order_is_strict():
+    strata = stable_graphs(1, 2)
+    assert not any(g < g for g in strata)
+    assert sum(1 for g in strata for h in strata if g < h) == len(strata) * (len(strata) - 1) // 2
+
+
+@pytest.mark.parametrize(
+    "args, message",
+    [
+        (([], []), "a graph needs at least one vertex"),
+        (([(True, [])], []), "vertex 0 has genus True; genera are integers >= 0"),
+        (([0, (1.5, [])], [(0, 1)]), "vertex 1 has genus 1.5; genera are integers >= 0"),
+        (([(0, [True])], []), "leg label True at vertex 0 is not a positive integer"),
+        (([(0, ["1"])], []), "leg label '1' at vertex 0 is not a positive integer"),
+        (([0, 0, 0], [(0, 1)]), "the graph is disconnected (2 components)"),
+    ],
+)
+def test_invalid_graph_messages_in_full(args, message):
+    with pytest.raises(GraphError) as info:
+        CurveGraph(*args)
+    assert str(info.value) == message
+
+
+def test_parts_without_legs():
+    # the internal constructor with no legs: every vertex without legs
+    g = CurveGraph._from_parts([1, 0], [(1, 0), (1, 1)])
+    assert g == CurveGraph([1, 0], nodes=[(0, 1), (1, 1)]) and g.n_legs == 0 and g.genus == 2
+
+
+def test_a_smooth_curve_of_genus_one_without_legs_is_unstable():
+    # 2g - 2 + n = 0 for (g, n) = (1, 0): Mbar_{1,0} does not exist (common knowledge)
+    assert not CurveGraph([1]).is_stable() and CurveGraph([1], nodes=[(0, 0)]).is_stable()
+    with pytest.raises(GraphError, match=r"vertex 0 \(genus 1, valence 0\) is unstable"):
+        StableCurveGraph([1])

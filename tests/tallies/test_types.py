@@ -8,7 +8,7 @@ from itertools import permutations, product
 
 import pytest
 
-from covertree.errors import GraphError, IdentityError
+from covertree.errors import GraphError, IdentityError, ProblemError
 from covertree.graphs.notation import parse_graph
 from covertree.hurwitz.numbers import connected_hurwitz
 from covertree.hurwitz.problem import HurwitzProblem
@@ -225,3 +225,62 @@ def test_pullback_orders_need_codimension_one():
     t = tally_stratum(HurwitzProblem.build(2, 1, genus=2), BaseStratum(parse_graph("g1{1,2}"), 1))
     with pytest.raises(IdentityError):
         t.pullback_orders()
+
+
+def _brute_multisets(shapes, d, legs, g, loops):
+    """Sorted index tuples of up to d shapes: degrees adding up to d, genera to at most g,
+    the profiles at every leg adding up to mu_j, equal profiles at both ends of every loop."""
+    out = set()
+    for n in range(1, d + 1):
+        for combo in product(range(len(shapes)), repeat=n):
+            if list(combo) != sorted(combo) or sum(shapes[i].degree for i in combo) != d:
+                continue
+            if sum(shapes[i].genus for i in combo) > g:
+                continue
+            if all(Counter(x for i in combo for x in shapes[i].legs[j]) == Counter(mu) for j, mu in enumerate(legs)) \
+                    and all(Counter(x for i in combo for x in shapes[i].halves[p]) ==
+                            Counter(x for i in combo for x in shapes[i].halves[q]) for p, q in loops):
+                out.add(combo)
+    return out
+
+
+@pytest.mark.parametrize("d, h, legs, n_halves, g, loops", [
+    (2, 0, ((2,), (2,)), 1, 1, ()),  # no fixed points at the legs: the first shape uses a slot
+    (4, 0, ((2, 2), (2, 2)), 1, 2, ()),
+    (3, 0, ((2, 1), (2, 1)), 2, 2, ((0, 1),)),  # a loop: 4 of the 6 multisets balanced
+    (4, 0, ((2, 1, 1), (2, 1, 1)), 2, 2, ((0, 1),)),
+    (4, 0, ((2, 2), (2, 2)), 2, 2, ((0, 1),)),
+    (3, 1, ((2, 1),), 3, 3, ((1, 2),)),
+])
+def test_local_multisets_with_loops_match_brute_force(d, h, legs, n_halves, g, loops):
+    shapes = piece_shapes(d, h, legs, n_halves, g)
+    multisets = local_multisets(d, h, legs, n_halves, g, loops)
+    assert multisets and multisets == sorted(set(multisets))
+    assert set(multisets) == _brute_multisets(shapes, d, legs, g, loops)
+
+
+def test_types_are_not_listed_for_marked_problems():
+    problem = HurwitzProblem.build(2, 0, genus=2, marks=["1"])
+    base = BaseStratum(parse_graph("g0{1,2,3,4,5,6}"), 1)
+    with pytest.raises(ProblemError, match="^types are listed for unmarked problems only; the tallies take the marks$"):
+        list(iter_types(problem, base))
+
+
+def test_pullback_orders_need_a_codimension_one_base():
+    problem = HurwitzProblem.build(2, 0, genus=2)
+    smooth = tally_stratum(problem, BaseStratum(parse_graph("g0{1,2,3,4,5,6}"), 1))
+    with pytest.raises(IdentityError, match="^orders along a branch need a codimension-one base stratum$"):
+        smooth.pullback_orders()
+
+
+def test_listed_types_carry_their_pieces_and_point_pairs():
+    # over g0{1,2} | 0-0 every piece sits at the one vertex, and each type pairs the points over
+    # the two ends of the node one by one: as many pairs as points over one end
+    problem = HurwitzProblem.build(3, 1, genus=2)
+    base = BaseStratum(parse_graph("g0{1,2} | 0-0"), 1)
+    types = list(iter_types(problem, base))
+    assert types
+    for t in types:
+        assert t.vertex == (0,) * len(t.shapes)
+        assert len(t.edges) == sum(len(p) for p in t.edge_profiles)
+        assert {i for i, _, _, _ in t.edges} | {j for _, j, _, _ in t.edges} <= set(range(len(t.shapes)))
