@@ -68,13 +68,17 @@ time_limit_option = click.option(
 @contextmanager
 def deadline(seconds: float | None) -> Iterator[None]:
     """Raise :class:`LimitError` in the block once ``seconds`` have passed
-    (a real-time timer; ``None``: no limit).  The previous handler and timer
-    are restored on exit."""
+    (a real-time timer; ``None``: no limit), and again every 0.5 s until the
+    block is left (an exception raised inside a callback of the collector is
+    lost).  The previous handler is restored and the timer cleared on exit."""
     if seconds is None or not hasattr(signal, "setitimer"):
         yield
         return
 
     def expire(signum, frame):
+        # fire again shortly: Python swallows an exception raised while a
+        # weak-reference or collector callback runs, and the run would go on
+        signal.setitimer(signal.ITIMER_REAL, 0.5)
         raise LimitError(f"stopped at the time limit of {seconds:g} s (--time-limit); no output file written; "
                          "raise --time-limit or make the problem smaller")
 

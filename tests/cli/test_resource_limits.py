@@ -228,3 +228,24 @@ def test_progress_with_running_count_on_a_terminal_only(args, shown):
 def test_series_locus_and_integral_guarded(args, shown):
     line = refusal(run(*args))
     assert shown in line and "largest" in line
+
+
+def test_time_limit_fires_again_when_its_first_exception_is_swallowed():
+    # as when the alarm lands in a collector or weak-reference callback
+    import time as clock
+
+    from covertree.cli.limits import deadline
+    from covertree.errors import LimitError
+
+    swallowed, start = 0, clock.monotonic()
+    with pytest.raises(LimitError):
+        with deadline(0.05):
+            while clock.monotonic() - start < 30:
+                try:
+                    while clock.monotonic() - start < 30:
+                        pass
+                except LimitError:
+                    if swallowed:
+                        raise
+                    swallowed += 1
+    assert swallowed == 1 and clock.monotonic() - start < 10
