@@ -43,7 +43,7 @@ $(MUTATE): $(STAMP)
 
 mutate: $(MUTATE)
 	@test -n "$(LAYER)" || { echo "make mutate LAYER=name (see tools/mutate.py)" >&2; exit 2; }
-	nice -n 10 $(BIN)/python tools/mutate.py $(LAYER) $(if $(BASE),--tests-from $(BASE)) $(if $(AGAIN),--again)
+	$(BIN)/python tools/mutate.py $(LAYER) $(if $(BASE),--tests-from $(BASE)) $(if $(AGAIN),--again)
 
 bench: $(CORE)
 	$(BIN)/python benchmarks/run.py

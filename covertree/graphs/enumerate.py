@@ -135,7 +135,7 @@ def check_strata(genus: int, n: int, codim: int, max_work: float | None) -> None
     parts.append(f"the largest feasible codim is {k}" if k is not None else "no codimension is feasible")
     g = largest_feasible(lambda h: strata_work(h, n, codim), 0, genus, max_work)
     if g is not None and 2 * g - 2 + n > 0:
-        parts.append(f"genus {g} with {n} points")
+        parts.append(f"genus {g} with {n} point{'s' if n != 1 else ''}")
     m = largest_feasible(lambda p: strata_work(genus, p, codim), 0, n, max_work)
     if m is not None and 2 * genus - 2 + m > 0:
         parts.append(f"{m} point{'s' if m != 1 else ''} at genus {genus}")
