@@ -60,3 +60,64 @@ def test_orbit_test_matches_brute_force(text, degree):
                 checked += 1
                 lesser += expected
     assert checked > lesser > 0
+
+
+def _connected_matchings(text, degree):
+    """(orbit test, matching) for every connected matching of a small stratum."""
+    base = parse_graph(text)
+    profiles = [tuple(p) for p in HurwitzProblem.build(degree, 1, genus=2).profiles]
+    specs = special_points(base)
+    for choice in balanced_choices(base, degree, profiles):
+        m = _Matcher(base, specs, choice)
+        for partner in m.matchings():
+            if m.connected():
+                yield m.orbit_test, dict(partner)
+
+
+def test_no_prefix_of_a_least_word_is_proved_lesser():
+    # a partial matching answers yes only when every completion has a lesser
+    # word in its orbit; a least word is such a completion of each of its prefixes
+    least = proved = 0
+    for test, partner in _connected_matchings("g0{1}, g0{2} | 0-1^2", 4):
+        if _brute_has_lesser(test, partner):
+            continue
+        least += 1
+        for s in range(len(test.positions)):
+            prefix = {x: partner[x] for x in test.positions[:s]}
+            assert test.has_lesser(prefix) is False
+            proved += 1
+    assert least > 0 and proved > least
+
+
+class _Counting:
+    """Count the letters one unlimited search compares."""
+
+    def __init__(self, test):
+        self.test, self.letters = test, 0
+        self._letter = test._letter
+
+    def __enter__(self):
+        def counted(*args):
+            self.letters += 1
+            return self._letter(*args)
+        self.test._letter = counted
+        return self
+
+    def __exit__(self, *exc):
+        del self.test._letter
+
+
+def test_budget_is_the_number_of_letters_and_the_test_can_be_asked_again():
+    gave_up = 0
+    for test, partner in _connected_matchings("g0, g0{1,2} | 0-0, 0-1", 4):
+        expected = _brute_has_lesser(test, partner)
+        with _Counting(test) as count:
+            assert test.has_lesser(partner) == expected
+        letters = count.letters
+        assert letters >= 1
+        assert test.has_lesser(partner, letters) == expected  # exactly enough
+        assert test.has_lesser(partner, letters - 1) is None  # one letter short
+        gave_up += 1
+        # after giving up mid-search the test is as new
+        assert test.has_lesser(partner) == expected
+    assert gave_up > 0
