@@ -4,6 +4,7 @@ way (temporary output files are removed on the way out) and it exits
 
 from __future__ import annotations
 
+import os
 import signal
 import threading
 from collections.abc import Iterator
@@ -34,20 +35,34 @@ def _kept(params: dict) -> str:
     return said
 
 
-def _raise_terminated(signum, frame) -> None:
-    raise Terminated(signum)
+#: Seconds after which a SIGTERM or SIGHUP is delivered again while the command
+#: still runs: Python swallows an exception raised while a weak-reference or
+#: collector callback runs, so the first one can be lost.
+REPEAT_AFTER = 1.0
 
 
 @contextmanager
 def signals_interrupt() -> Iterator[None]:
-    """Turn SIGTERM and SIGHUP into :class:`Terminated` (main thread only)."""
+    """Turn SIGTERM and SIGHUP into :class:`Terminated` (main thread only),
+    delivered again every :data:`REPEAT_AFTER` seconds until the block is left."""
     if threading.current_thread() is not threading.main_thread():
         yield
         return
-    previous = {sig: signal.signal(sig, _raise_terminated) for sig in (signal.SIGTERM, signal.SIGHUP)}
+    timers: list[threading.Timer] = []
+
+    def terminated(signum, frame) -> None:
+        timer = threading.Timer(REPEAT_AFTER, os.kill, (os.getpid(), signum))
+        timer.daemon = True
+        timer.start()
+        timers.append(timer)
+        raise Terminated(signum)
+
+    previous = {sig: signal.signal(sig, terminated) for sig in (signal.SIGTERM, signal.SIGHUP)}
     try:
         yield
     finally:
+        for timer in timers:
+            timer.cancel()
         for sig, handler in previous.items():
             signal.signal(sig, handler)
 

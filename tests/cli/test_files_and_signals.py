@@ -214,3 +214,23 @@ def test_leftover_of_a_killed_writer_is_recognised_and_cleaned(tmp_path):
     assert left[0].name.startswith(".covers.jsonl.covertree-partial-")
     assert invoke(*COUNT, "-o", str(tmp_path / "other.json")).exit_code == 0
     assert temporaries(tmp_path) == []
+
+
+def test_termination_is_delivered_again_when_the_first_is_swallowed():
+    # as when SIGTERM lands in a weak-reference or collector callback
+    from covertree.cli.interrupts import Terminated, signals_interrupt
+
+    before = signal.getsignal(signal.SIGTERM)
+    swallowed, start = 0, time.monotonic()
+    with pytest.raises(Terminated):
+        with signals_interrupt():
+            try:
+                os.kill(os.getpid(), signal.SIGTERM)
+                while time.monotonic() - start < 30:
+                    pass
+            except Terminated:
+                swallowed += 1
+            while time.monotonic() - start < 30:
+                pass
+    assert swallowed == 1 and time.monotonic() - start < 10
+    assert signal.getsignal(signal.SIGTERM) is before
