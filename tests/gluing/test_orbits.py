@@ -121,3 +121,43 @@ def test_budget_is_the_number_of_letters_and_the_test_can_be_asked_again():
         # after giving up mid-search the test is as new
         assert test.has_lesser(partner) == expected
     assert gave_up > 0
+
+
+def _count_by_hand(base, degree, profiles):
+    """(matchings, connected ones, those not least in their orbit, choices with
+    a connected matching), counted over the engine's choices with the
+    brute-force orbit."""
+    specs = special_points(base)
+    matchings = connected = lesser = choices = 0
+    for choice in balanced_choices(base, degree, profiles):
+        m = _Matcher(base, specs, choice)
+        any_connected = False
+        for partner in m.matchings():
+            matchings += 1
+            if m.connected():
+                connected += 1
+                any_connected = True
+                lesser += _brute_has_lesser(m.orbit_test, dict(partner))
+        choices += any_connected
+    return matchings, connected, lesser, choices
+
+
+@pytest.mark.parametrize("text", ["g0, g0{1,2} | 0-0, 0-1", "g0{1}, g0{2} | 0-1^2"])
+def test_stats_count_the_work(monkeypatch, text):
+    import covertree.gluing.covers as covers
+
+    base = parse_graph(text)
+    profiles = [tuple(p) for p in HurwitzProblem.build(4, 1, genus=2).profiles]
+    matchings, connected, lesser, choices = _count_by_hand(base, 4, profiles)
+    assert connected > lesser > 0 and choices > 1
+    stats = covers.GluingStats()
+    found = len(list(covers.glued_covers(base, 4, profiles, stats=stats)))
+    assert (stats.matchings, stats.rejected, stats.codes, stats.untested) == (
+        matchings, lesser, connected - lesser, 0)
+    assert stats.covers == found
+    # with no budget at all every choice gives up at its first connected matching
+    monkeypatch.setattr(covers, "ORBIT_TEST_BUDGET", 0)
+    stats = covers.GluingStats()
+    assert len(list(covers.glued_covers(base, 4, profiles, stats=stats))) == found
+    assert (stats.matchings, stats.rejected, stats.codes, stats.untested) == (
+        matchings, 0, connected, choices)
