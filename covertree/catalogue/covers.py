@@ -28,8 +28,7 @@ from fractions import Fraction
 
 from covertree.errors import IdentityError
 from covertree.gluing.covers import GluedCover, glued_covers
-from covertree.graphs.canonical import certify
-from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph, _relabelled, _unstable_vertex, _validated
+from covertree.graphs.curve_graph import CurveGraph, StableCurveGraph, graph_and_order
 from covertree.hurwitz.problem import source_genus
 from covertree.stabilisation.stabilise import Stabilised, stabilise
 
@@ -125,31 +124,19 @@ def legs_per_vertex(n_vertices: int, carriers: Sequence[int]) -> tuple[tuple[int
 def make_graph(genera: Sequence[int], edges: Sequence[tuple[int, int]],
                legs: Sequence[Sequence[int]] | None = None) -> CurveGraph:
     """A :class:`StableCurveGraph` when stable, else a :class:`CurveGraph`."""
-    return certified_graph(genera, edges, legs)[0]
-
-
-def certified_graph(genera: Sequence[int], edges: Sequence[tuple[int, int]],
-                    legs: Sequence[Sequence[int]] | None = None) -> tuple[CurveGraph, tuple[int, ...]]:
-    """:func:`make_graph` and the canonical vertex order behind it (the input
-    vertex at each canonical position, as in
-    :func:`covertree.graphs.canonical.canonical_form`), from one canonical
-    form."""
-    genera, edges, legs = _validated(genera, edges, legs)
-    key, order, aut_v = certify(genera, edges, legs)
-    kind = StableCurveGraph if _unstable_vertex(genera, edges, legs) is None else CurveGraph
-    return kind._from_canonical(*_relabelled(genera, edges, legs, order), key, aut_v), tuple(order)
+    return graph_and_order(genera, edges, legs)[0]
 
 
 def to_cover(raw: GluedCover, genus: int) -> Cover:
     """Build the user-facing cover, checking the source's arithmetic genus."""
     legs = legs_per_vertex(len(raw.source_genera), raw.source_legs)
-    source, source_order = certified_graph(raw.source_genera, raw.source_edges, legs)
+    source, source_order = graph_and_order(raw.source_genera, raw.source_edges, legs)
     if source.genus != genus:
         raise IdentityError(
             f"source {source.notation} has arithmetic genus {source.genus}, not {genus}"
         )
     stab = stabilise(raw.source_genera, raw.source_edges, legs)
-    stable, stable_order = certified_graph(stab.genera, stab.edges, stab.legs)
+    stable, stable_order = graph_and_order(stab.genera, stab.edges, stab.legs)
     return Cover(raw.edge_profiles, source, stable, raw.automorphisms, raw.multiplicity, raw, stab,
                  source_order, stable_order)
 

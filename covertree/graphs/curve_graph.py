@@ -40,7 +40,7 @@ from covertree.errors import GraphError
 from covertree.graphs.canonical import certify, check_shape, edge_symmetry_factor
 from covertree.unionfind import DisjointSets
 
-__all__ = ["CurveGraph", "StableCurveGraph", "Vertex"]
+__all__ = ["CurveGraph", "StableCurveGraph", "Vertex", "graph_and_order"]
 
 
 class Vertex(NamedTuple):
@@ -320,6 +320,23 @@ class StableCurveGraph(CurveGraph):
                 f"vertex {v} (genus {genera[v]}, valence {valence}) is unstable: "
                 "2g - 2 + valence must be positive"
             )
+
+
+def graph_and_order(genera: Sequence[int], edges: Sequence[tuple[int, int]],
+                    legs: Sequence[Sequence[int]] | None = None) -> tuple[CurveGraph, tuple[int, ...]]:
+    """A :class:`StableCurveGraph` when the graph is stable, else a
+    :class:`CurveGraph`, with the canonical vertex order behind it (the input
+    vertex at each canonical position, as in
+    :func:`covertree.graphs.canonical.canonical_form`), from one canonical form.
+
+    >>> graph, order = graph_and_order([1, 0], [(0, 1)], [[], [1, 2]])
+    >>> graph.notation, order, type(graph).__name__
+    ('g0{1,2}, g1 | 0-1', (1, 0), 'StableCurveGraph')
+    """
+    genera, edges, legs = _validated(genera, edges, legs)
+    key, order, aut_v = certify(genera, edges, legs)
+    kind = StableCurveGraph if _unstable_vertex(genera, edges, legs) is None else CurveGraph
+    return kind._from_canonical(*_relabelled(genera, edges, legs, order), key, aut_v), tuple(order)
 
 
 def _unstable_vertex(genera, edges, legs) -> int | None:
