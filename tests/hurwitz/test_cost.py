@@ -35,6 +35,14 @@ def _refusal(*args) -> str:
     return str(err.value)
 
 
+def _named_genus_is_the_bound(line: str, degree: int, target: int) -> None:
+    """The genus a refusal names last passes the guard at ``degree``, the next is refused."""
+    largest = int(line.rsplit(" ", 1)[1])
+    check_count(degree, target, largest, [], LIMIT)
+    with pytest.raises(TooLargeError):
+        check_count(degree, target, largest + 1, [], LIMIT)
+
+
 @pytest.mark.parametrize("degree, target, genus, profiles, simple", [
     # 2g - 2 = d(2h - 2) + sum (d - len mu) + (number of simple points), by hand
     (2, 1, 2, [], 2),            # 2 = 0 + b
@@ -76,10 +84,7 @@ def test_too_many_points_refused_naming_the_largest_feasible_genus():
     line = _refusal(6, 0, 50_000, [], None)
     assert line.startswith("genus 50000 needs 100010 branch points at degree 6; at most 100000 allowed; "
                            "the largest feasible genus at degree 6 is ")
-    largest = int(line.rsplit(" ", 1)[1])
-    check_count(6, 0, largest, [], LIMIT)
-    with pytest.raises(TooLargeError):
-        check_count(6, 0, largest + 1, [], LIMIT)
+    _named_genus_is_the_bound(line, 6, 0)
     assert _refusal(6, 0, 50_000, [], LIMIT) == line
 
 
@@ -115,10 +120,7 @@ def test_the_genus_hint_follows_the_engine_of_an_elliptic_target():
     line = _refusal(40, 1, 60_000, [], None)
     assert line.startswith("genus 60000 needs 119998 branch points at degree 40; at most 100000 allowed; "
                            "the largest feasible genus at degree 40 is ")
-    largest = int(line.rsplit(" ", 1)[1])
-    check_count(40, 1, largest, [], LIMIT)
-    with pytest.raises(TooLargeError):
-        check_count(40, 1, largest + 1, [], LIMIT)
+    _named_genus_is_the_bound(line, 40, 1)
 
 
 def _sub_multisets(mu: tuple[int, ...], m: int) -> list[tuple[int, ...]]:
